@@ -1,0 +1,8 @@
+export function SettingsScreen() {
+  return (
+    <section className="screen" aria-labelledby="settings-title">
+      <h2 id="settings-title">Settings</h2>
+      <p>Settings: cruise, vessel, observers, storage and display.</p>
+    </section>
+  );
+}

@@ -1,0 +1,2 @@
+// Every database test runs against an in-memory IndexedDB in Node.
+import 'fake-indexeddb/auto';

@@ -1,0 +1,51 @@
+import { defineConfig } from 'vitest/config';
+import react from '@vitejs/plugin-react';
+
+// One config for the app build and the unit/component/database tests.
+// Browser (e2e) tests and benchmarks have their own configs because they need the built app
+// and must run one file at a time on a 2-core machine.
+export default defineConfig({
+  plugins: [react()],
+  // Keep the cache in the project, not in node_modules, so several checkouts that share one
+  // node_modules (git worktrees) do not trample each other's optimised deps.
+  cacheDir: '.vite-cache',
+  server: { host: '127.0.0.1', port: 5173 },
+  preview: { host: '127.0.0.1', port: 4173, strictPort: true },
+  build: {
+    target: 'es2022',
+    sourcemap: true,
+    chunkSizeWarningLimit: 2048,
+  },
+  worker: { format: 'es' },
+  test: {
+    reporters: ['default', ['json', { outputFile: 'test-results/unit.json' }]],
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'node',
+          environment: 'node',
+          include: ['test/domain/**/*.test.ts', 'test/format/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/gps/**/*.test.ts'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'db',
+          environment: 'node',
+          include: ['test/db/**/*.test.ts'],
+          setupFiles: ['test/setup/db.ts'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'dom',
+          environment: 'jsdom',
+          include: ['test/features/**/*.test.{ts,tsx}', 'test/app/**/*.test.{ts,tsx}', 'test/state/**/*.test.ts'],
+          setupFiles: ['test/setup/dom.ts'],
+        },
+      },
+    ],
+  },
+});
