@@ -24,21 +24,45 @@ export interface TimedFix {
 
 /** Builds the timeline from fixes sorted by time; fixes at the same time as the previous are skipped. */
 export function buildDistanceTimeline(fixes: readonly TimedFix[], source: Exclude<DistanceSource, 'none'>): DistanceTimeline {
-  const times = new Float64Array(fixes.length);
-  const cum = new Float64Array(fixes.length);
+  const n = fixes.length;
+  const t = new Float64Array(n);
+  const lat = new Float64Array(n);
+  const lon = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const f = fixes[i] as TimedFix;
+    t[i] = f.timeMs;
+    lat[i] = f.lat;
+    lon[i] = f.lon;
+  }
+  return buildDistanceTimelineFromColumns(t, lat, lon, n, source);
+}
+
+/** The same from parallel columns (no object per fix: a cruise has tens of thousands). */
+export function buildDistanceTimelineFromColumns(
+  timeMs: ArrayLike<number>, lat: ArrayLike<number>, lon: ArrayLike<number>, count: number, source: Exclude<DistanceSource, 'none'>,
+): DistanceTimeline {
+  const times = new Float64Array(count);
+  const cum = new Float64Array(count);
   let n = 0;
   let sum = 0;
-  let prev: TimedFix | undefined;
-  for (const f of fixes) {
-    if (!Number.isFinite(f.timeMs) || !Number.isFinite(f.lat) || !Number.isFinite(f.lon)) continue;
-    if (prev) {
-      if (f.timeMs <= prev.timeMs) continue;
-      sum += legDistanceM(prev.lat, prev.lon, f.lat, f.lon);
+  let pt = Number.NEGATIVE_INFINITY;
+  let plat = 0;
+  let plon = 0;
+  for (let i = 0; i < count; i++) {
+    const ti = timeMs[i] as number;
+    const la = lat[i] as number;
+    const lo = lon[i] as number;
+    if (!Number.isFinite(ti) || !Number.isFinite(la) || !Number.isFinite(lo)) continue;
+    if (n > 0) {
+      if (ti <= pt) continue;
+      sum += legDistanceM(plat, plon, la, lo);
     }
-    times[n] = f.timeMs;
+    times[n] = ti;
     cum[n] = sum;
     n++;
-    prev = f;
+    pt = ti;
+    plat = la;
+    plon = lo;
   }
   return { source: n >= 2 ? source : 'none', timesMs: times.subarray(0, n), cumulativeM: cum.subarray(0, n), totalM: sum };
 }

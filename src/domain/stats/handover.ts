@@ -62,7 +62,8 @@ interface Acc {
 const acc = (): Acc => ({ count: 0, conc: new Diff(), thick: new Diff() });
 
 export class HandoverBuilder {
-  private readonly pairs = new Map<string, Acc & { from: string; to: string }>();
+  // Keyed by outgoing then incoming observer: no key string built per pair.
+  private readonly pairs = new Map<string, Map<string, Acc & { from: string; to: string }>>();
   private readonly offsets = new Map<string, Acc>();
   private readonly same = acc();
 
@@ -81,30 +82,38 @@ export class HandoverBuilder {
       if (dt !== null) this.same.thick.add(dt);
       return;
     }
-    const key = `${a.observerId}\u0000${b.observerId}`;
-    let p = this.pairs.get(key);
+    let byTo = this.pairs.get(a.observerId);
+    if (!byTo) {
+      byTo = new Map();
+      this.pairs.set(a.observerId, byTo);
+    }
+    let p = byTo.get(b.observerId);
     if (!p) {
       p = { ...acc(), from: a.observerId, to: b.observerId };
-      this.pairs.set(key, p);
+      byTo.set(b.observerId, p);
     }
     p.count++;
     if (dc !== null) p.conc.add(dc);
     if (dt !== null) p.thick.add(dt);
     // Each side's offset: own reading minus the other's.
-    for (const [id, sign] of [[b.observerId, 1], [a.observerId, -1]] as const) {
-      let o = this.offsets.get(id);
-      if (!o) {
-        o = acc();
-        this.offsets.set(id, o);
-      }
-      o.count++;
-      if (dc !== null) o.conc.add(sign * dc);
-      if (dt !== null) o.thick.add(sign * dt);
+    this.offset(b.observerId, 1, dc, dt);
+    this.offset(a.observerId, -1, dc, dt);
+  }
+
+  private offset(id: string, sign: number, dc: number | null, dt: number | null): void {
+    let o = this.offsets.get(id);
+    if (!o) {
+      o = acc();
+      this.offsets.set(id, o);
     }
+    o.count++;
+    if (dc !== null) o.conc.add(sign * dc);
+    if (dt !== null) o.thick.add(sign * dt);
   }
 
   result(): HandoverTable {
     const pairs = [...this.pairs.values()]
+      .flatMap((byTo) => [...byTo.values()])
       .map((p) => ({ fromObserverId: p.from, toObserverId: p.to, handovers: p.count, concentration: p.conc.result(), thicknessCm: p.thick.result() }))
       .sort((x, y) => y.handovers - x.handovers || x.fromObserverId.localeCompare(y.fromObserverId) || x.toObserverId.localeCompare(y.toObserverId));
     const observers = [...this.offsets.entries()]

@@ -2,7 +2,7 @@
 // Each observation counts once; within it, categories weigh by (partial) concentration, so a
 // mean thickness is the mean over every tenth of ice seen, not a mean of observation means.
 import { STAGE_KEYS, type Observation, type StageKey } from '../model.ts';
-import type { ObservationFigures } from './observationFigures.ts';
+import { categoryWeight, type ObservationFigures } from './observationFigures.ts';
 
 export interface StageShare {
   stage: StageKey;
@@ -54,11 +54,13 @@ export class IcePool {
     this.rtW += f.ridgedThicknessWeight;
     this.rSum += f.ridgedWeightedSum;
     this.rW += f.ridgedWeight;
-    for (const s of f.stages) {
-      const i = STAGE_INDEX.get(s.stage);
+    const cats = obs.categories;
+    for (let k = 0; k < cats.length; k++) {
+      const w = categoryWeight(obs, k);
+      const i = w > 0 ? STAGE_INDEX.get((cats[k] as Observation['categories'][number]).stage) : undefined;
       if (i === undefined) continue;
-      this.stageW[i] = (this.stageW[i] as number) + s.weight;
-      this.stageTotal += s.weight;
+      this.stageW[i] = (this.stageW[i] as number) + w;
+      this.stageTotal += w;
     }
   }
 

@@ -7,6 +7,7 @@ export { latitudeBandLabel, type LatitudeBand, type LatitudeBandTable } from './
 export type { HandoverTable, HandoverPair, ObserverOffset, DifferenceStats } from './handover.ts';
 export type { ReviewSeries } from './series.ts';
 export type { IceFigures, StageShare } from './icePool.ts';
-export { categoryWeights, observationFigures, type ObservationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
+export { categoryWeight, observationFigures, type ObservationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
 export { legDistanceM, SHORT_LEG_LIMIT_M } from './legDistance.ts';
 export { buildDistanceTimeline, distanceAt, distanceBetween, type DistanceTimeline, type DistanceSource } from './distanceTimeline.ts';
+export { rioForObservation, type RioOnly } from './rio.ts';

@@ -1,20 +1,20 @@
 // The figures the review derives from one observation, computed once and shared by the summary,
 // the latitude bands, the handover table and the charts.
-import type { IceCategory, Observation, StageKey, VesselIceClass } from '../model.ts';
-import { polarisForObservation, type PolarisOutcome } from '../polaris.ts';
+import type { IceCategory, Observation, VesselIceClass } from '../model.ts';
+import type { PolarisOutcome } from '../polaris.ts';
+import { rioForObservation } from './rio.ts';
 
 /**
  * The weight (tenths) of each category: its partial concentration; where the observation has a
  * single category, the total concentration (the egg code leaves Ca blank for a single ice type,
  * so the partial may be missing or 0), falling back to the partial if no total was judged.
  */
-export function categoryWeights(obs: Pick<Observation, 'totalConcentration' | 'categories'>): number[] {
+export function categoryWeight(obs: Pick<Observation, 'totalConcentration' | 'categories'>, index: number): number {
   const cats = obs.categories;
-  if (cats.length === 1) {
-    const only = cats[0] as IceCategory;
-    return [obs.totalConcentration ?? only.partialConcentration];
-  }
-  return cats.map((c) => c.partialConcentration);
+  const c = cats[index];
+  if (!c) return 0;
+  const w = cats.length === 1 ? (obs.totalConcentration ?? c.partialConcentration) : c.partialConcentration;
+  return Number.isFinite(w) && w > 0 ? w : 0;
 }
 
 export interface ObservationFigures {
@@ -30,8 +30,6 @@ export interface ObservationFigures {
   /** Σ weight x ridged fraction and Σ weight over categories with a ridged share recorded. */
   ridgedWeightedSum: number;
   ridgedWeight: number;
-  /** Stage weights (tenths) of the categories, for stage shares. */
-  stages: { stage: StageKey; weight: number }[];
   rio: number | null;
   outcome: PolarisOutcome | null;
 }
@@ -44,18 +42,17 @@ export function observationFigures(
   iceClass: VesselIceClass,
   ridgeEstimate: RidgeThicknessEstimate | null,
 ): ObservationFigures {
-  const weights = categoryWeights(obs);
   let tSum = 0;
   let tW = 0;
   let rtSum = 0;
   let rtW = 0;
   let rSum = 0;
   let rW = 0;
-  const stages: { stage: StageKey; weight: number }[] = [];
-  obs.categories.forEach((c, i) => {
-    const w = weights[i] ?? 0;
-    if (!(w > 0)) return;
-    stages.push({ stage: c.stage, weight: w });
+  const cats = obs.categories;
+  for (let i = 0; i < cats.length; i++) {
+    const c = cats[i] as IceCategory;
+    const w = categoryWeight(obs, i);
+    if (w === 0) continue;
     if (c.thicknessCm !== undefined && Number.isFinite(c.thicknessCm)) {
       tSum += w * c.thicknessCm;
       tW += w;
@@ -71,8 +68,8 @@ export function observationFigures(
       rSum += (w * c.ridgedTenths) / 10;
       rW += w;
     }
-  });
-  const polaris = polarisForObservation(obs, iceClass);
+  }
+  const polaris = rioForObservation(obs, iceClass);
   return {
     levelThicknessCm: tW > 0 ? tSum / tW : null,
     thicknessWeightedSum: tSum,
@@ -82,8 +79,7 @@ export function observationFigures(
     ridgedThicknessWeight: rtW,
     ridgedWeightedSum: rSum,
     ridgedWeight: rW,
-    stages,
-    rio: polaris.ok ? polaris.value.rio : null,
-    outcome: polaris.ok ? polaris.value.outcome : null,
+    rio: polaris ? polaris.rio : null,
+    outcome: polaris ? polaris.outcome : null,
   };
 }

@@ -5,7 +5,7 @@ import type { Cruise, IsoUtc, Observation, Observer, TrackPoint, VesselIceClass 
 import { POLARIS_OUTCOME_LABELS, type PolarisOutcome } from '../polaris.ts';
 import { attributeTime, type ObservationGap } from './attribution.ts';
 import { LatitudeBandBuilder, type LatitudeBandTable } from './bands.ts';
-import { buildDistanceTimeline, distanceBetween, EMPTY_TIMELINE, type DistanceSource, type DistanceTimeline, type TimedFix } from './distanceTimeline.ts';
+import { buildDistanceTimelineFromColumns, distanceBetween, EMPTY_TIMELINE, type DistanceSource, type DistanceTimeline } from './distanceTimeline.ts';
 import { HandoverBuilder, type HandoverTable } from './handover.ts';
 import { IcePool, type IceFigures } from './icePool.ts';
 import { observationFigures, type ObservationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
@@ -93,8 +93,6 @@ export interface CruiseReview {
   bands: LatitudeBandTable;
   handover: HandoverTable;
   series: ReviewSeries;
-  /** The time each observation stands for, by id (hours). */
-  hoursById: ReadonlyMap<string, number>;
 }
 
 const tad = (): TimeAndDistance => ({ hours: 0, distanceNm: 0, observations: 0 });
@@ -124,18 +122,36 @@ function liveInTimeOrder(observations: readonly Observation[]): { obs: Observati
 
 function timelineFor(obs: readonly Observation[], times: Float64Array, track: readonly TrackPoint[] | undefined): DistanceTimeline {
   if (track && track.length >= 2) {
-    const fixes: TimedFix[] = track.map((p) => ({ timeMs: Date.parse(p.time), lat: p.lat, lon: p.lon }));
     let sorted = true;
-    for (let i = 1; i < fixes.length; i++) if ((fixes[i] as TimedFix).timeMs < (fixes[i - 1] as TimedFix).timeMs) sorted = false;
-    if (!sorted) fixes.sort((a, b) => a.timeMs - b.timeMs);
-    const tl = buildDistanceTimeline(fixes, 'track');
+    for (let i = 1; i < track.length; i++) if ((track[i] as TrackPoint).time < (track[i - 1] as TrackPoint).time) sorted = false;
+    const pts = sorted ? track : [...track].sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : 0));
+    const n = pts.length;
+    const t = new Float64Array(n);
+    const lat = new Float64Array(n);
+    const lon = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const p = pts[i] as TrackPoint;
+      t[i] = Date.parse(p.time);
+      lat[i] = p.lat;
+      lon[i] = p.lon;
+    }
+    const tl = buildDistanceTimelineFromColumns(t, lat, lon, n, 'track');
     if (tl.source !== 'none') return tl;
   }
-  const fixes: TimedFix[] = [];
-  obs.forEach((o, i) => {
-    if (o.position) fixes.push({ timeMs: times[i] as number, lat: o.position.lat, lon: o.position.lon });
-  });
-  const tl = buildDistanceTimeline(fixes, 'observations');
+  const n = obs.length;
+  const t = new Float64Array(n);
+  const lat = new Float64Array(n);
+  const lon = new Float64Array(n);
+  let k = 0;
+  for (let i = 0; i < n; i++) {
+    const pos = (obs[i] as Observation).position;
+    if (!pos) continue;
+    t[k] = times[i] as number;
+    lat[k] = pos.lat;
+    lon[k] = pos.lon;
+    k++;
+  }
+  const tl = buildDistanceTimelineFromColumns(t, lat, lon, k, 'observations');
   return tl.source === 'none' ? EMPTY_TIMELINE : tl;
 }
 
@@ -160,7 +176,6 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
   const notAssessed = tad();
   const inIce = tad();
   const perObserver = new Map<string, TimeAndDistance>();
-  const hoursById = new Map<string, number>();
   const gaps: ObservationGap[] = [];
   let included = 0;
   let observedHours = 0;
@@ -179,7 +194,6 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
     const hours = durMs / HOUR_MS;
     const nm = tl.source === 'none' ? 0 : distanceBetween(tl, t, t + durMs) / METRES_PER_NM;
     attributedNmAll += nm;
-    hoursById.set(o.id, hours);
     const fig = observationFigures(o, cruise.iceClass, ridgeEstimate);
 
     if (i > 0) {
@@ -224,15 +238,7 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
     }
     pool.add(o, fig);
     bands.add(o, fig, hours);
-    series.add({
-      timeMs: t, id: o.id,
-      totalConcentration: o.totalConcentration,
-      levelThicknessCm: fig.levelThicknessCm,
-      thicknessWithRidgesCm: fig.ridgedThicknessCm,
-      rio: fig.rio,
-      airTempC: o.weather?.airTempC ?? null,
-      waterTempC: o.weather?.waterTempC ?? null,
-    });
+    series.add(t, o, fig);
   }
 
   const first = obs[0];
@@ -272,5 +278,5 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
       notAssessed,
     },
   };
-  return { summary, bands: bands.result(), handover: handover.result(), series: series.series, hoursById };
+  return { summary, bands: bands.result(), handover: handover.result(), series: series.series };
 }

@@ -2,6 +2,8 @@
 // seconds) and one array per figure, with null where a value is missing. Where two consecutive
 // observations are further apart than the attribution cap, a row of nulls is put at the end of
 // the earlier observation's attributed time, so every chart shows the gap as a break in the line.
+import type { Observation } from '../model.ts';
+import type { ObservationFigures } from './observationFigures.ts';
 
 export interface ReviewSeries {
   /** Unix seconds. */
@@ -16,17 +18,6 @@ export interface ReviewSeries {
   observationId: (string | null)[];
 }
 
-export interface SeriesRow {
-  timeMs: number;
-  id: string;
-  totalConcentration: number | null;
-  levelThicknessCm: number | null;
-  thicknessWithRidgesCm: number | null;
-  rio: number | null;
-  airTempC: number | null;
-  waterTempC: number | null;
-}
-
 export class SeriesBuilder {
   readonly series: ReviewSeries = {
     time: [], totalConcentration: [], levelThicknessCm: [], thicknessWithRidgesCm: [], rio: [], airTempC: [], waterTempC: [], observationId: [],
@@ -35,21 +26,26 @@ export class SeriesBuilder {
 
   constructor(private readonly capMs: number) {}
 
-  add(r: SeriesRow): void {
-    if (this.lastMs !== null && r.timeMs - this.lastMs > this.capMs) this.push((this.lastMs + this.capMs) / 1000, null, null);
-    this.push(r.timeMs / 1000, r, r.id);
-    this.lastMs = r.timeMs;
-  }
-
-  private push(t: number, r: SeriesRow | null, id: string | null): void {
+  add(timeMs: number, o: Observation, f: ObservationFigures): void {
     const s = this.series;
-    s.time.push(t);
-    s.totalConcentration.push(r ? r.totalConcentration : null);
-    s.levelThicknessCm.push(r ? r.levelThicknessCm : null);
-    s.thicknessWithRidgesCm.push(r ? r.thicknessWithRidgesCm : null);
-    s.rio.push(r ? r.rio : null);
-    s.airTempC.push(r ? r.airTempC : null);
-    s.waterTempC.push(r ? r.waterTempC : null);
-    s.observationId.push(id);
+    if (this.lastMs !== null && timeMs - this.lastMs > this.capMs) {
+      s.time.push((this.lastMs + this.capMs) / 1000);
+      s.totalConcentration.push(null);
+      s.levelThicknessCm.push(null);
+      s.thicknessWithRidgesCm.push(null);
+      s.rio.push(null);
+      s.airTempC.push(null);
+      s.waterTempC.push(null);
+      s.observationId.push(null);
+    }
+    s.time.push(timeMs / 1000);
+    s.totalConcentration.push(o.totalConcentration);
+    s.levelThicknessCm.push(f.levelThicknessCm);
+    s.thicknessWithRidgesCm.push(f.ridgedThicknessCm);
+    s.rio.push(f.rio);
+    s.airTempC.push(o.weather?.airTempC ?? null);
+    s.waterTempC.push(o.weather?.waterTempC ?? null);
+    s.observationId.push(o.id);
+    this.lastMs = timeMs;
   }
 }
