@@ -30,4 +30,7 @@ export {
   type DeleteOptions,
   type ListObservationsQuery,
 } from './observations';
+export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore, DEFAULT_TRACK_CHUNK, type AddTrackPointsOptions, type AddTrackPointsResult } from './trackPoints';
+export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
+export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';

@@ -3,9 +3,9 @@
 import { Dexie } from 'dexie';
 import type { IsoUtc, Observation } from '../domain/model';
 import { getDb, writableDb } from './connection';
-import type { FloeDatabase } from './database';
 import { InvalidRecordError, mapWriteError, RecordNotFoundError, ObservationConflictError } from './errors';
-import type { ObservationInput, ObservationRevision } from './rows';
+import { replaceObservation } from './revisions';
+import type { ObservationInput } from './rows';
 import { deviceId } from './settings';
 import { checkObservation, nowIso } from './validate';
 
@@ -49,18 +49,6 @@ function stripUndefined<T extends object>(x: T): T {
   return JSON.parse(JSON.stringify(x)) as T;
 }
 
-async function writeNewVersion(
-  db: FloeDatabase,
-  old: Observation,
-  next: Observation,
-  at: IsoUtc,
-): Promise<void> {
-  const rev: ObservationRevision = { observationId: old.id, revision: old.revision, supersededAt: at, observation: old };
-  // add, not put: the revisions table is append-only, an existing row is never replaced.
-  await db.revisions.add(rev);
-  await db.observations.put(next);
-}
-
 /**
  * Saves a new observation (revision 1) or an edit (revision + 1, the old version kept in
  * revisions), in one strict-durability transaction. Resolves only after the commit.
@@ -94,7 +82,7 @@ export async function saveObservation(input: ObservationInput, opts: SaveObserva
         // Deleting and restoring have their own functions; an edit keeps the flag.
         deleted: old.deleted,
       });
-      await writeNewVersion(db, old, next, at);
+      await replaceObservation(db, old, next, at);
       return { observation: next, changed: true };
     });
   } catch (err) {
@@ -120,7 +108,7 @@ async function setDeleted(id: string, deleted: boolean, opts: DeleteOptions): Pr
       if (old.deleted === deleted) return old;
       const at = nowIso();
       const next: Observation = { ...old, deleted, revision: old.revision + 1, savedAt: at, savedBy: opts.savedBy, deviceId: device };
-      await writeNewVersion(db, old, next, at);
+      await replaceObservation(db, old, next, at);
       return next;
     });
   } catch (err) {

@@ -9,6 +9,8 @@ export interface SchemaVersion {
   stores: Record<string, string | null>;
   /** Rewrites existing rows for this version; runs inside the upgrade transaction. */
   upgrade?: (tx: Transaction) => Promise<void> | void;
+  /** Tables whose existing rows `upgrade` rewrites; the fixture test compares the others exactly. */
+  rewrites?: readonly string[];
   /** One line for the contributor guide: what this version changed. */
   note: string;
 }

@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import type { DBCore, DBCoreMutateRequest, Middleware } from 'dexie';
 import {
   ConnectionClosedError,
   DatabaseTooNewError,
@@ -20,7 +19,7 @@ import {
   type DatabaseEvent,
   type SchemaVersion,
 } from '../../src/db';
-import { dumpAll, freshDatabasePerTest, makeCruise, makeObservation } from './helpers';
+import { dumpAll, freshDatabasePerTest, makeCruise, makeObservation, quotaFailure } from './helpers';
 
 const db = freshDatabasePerTest();
 
@@ -30,25 +29,6 @@ const FUTURE: SchemaVersion = {
   note: 'test only',
   stores: { ...SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.stores, photos: 'id, observationId, cruiseId, addedAt' },
 };
-
-/** A middleware that makes writes to the named tables fail as a full disk does in a browser. */
-function quotaFailure(tables: string[]): Middleware<DBCore> {
-  return {
-    stack: 'dbcore',
-    name: 'test-quota',
-    create: (down) => ({
-      ...down,
-      table: (name) => {
-        const t = down.table(name);
-        return {
-          ...t,
-          mutate: (req: DBCoreMutateRequest) =>
-            tables.includes(name) ? Promise.reject(new DOMException('The quota has been exceeded.', 'QuotaExceededError')) : t.mutate(req),
-        };
-      },
-    }),
-  };
-}
 
 describe('opening', () => {
   it('without IndexedDB, opening fails with a clear typed error, and so does every write', async () => {
@@ -110,7 +90,7 @@ describe('failed writes leave the database unchanged', () => {
     const before = await dumpAll();
     // Reconnect with revisions failing: the observation row is written first in the same
     // transaction, so this proves the rollback.
-    selectDatabase(db.name()).use(quotaFailure(['revisions']));
+    selectDatabase(db.name()).use(quotaFailure((table) => table === 'revisions'));
     const err = await saveObservation({ ...first, notes: 'edit' }, { expectedRevision: 1 }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(StorageFullError);
     expect((err as Error).message).toMatch(/Storage is full.*draft is kept/);
@@ -121,7 +101,7 @@ describe('failed writes leave the database unchanged', () => {
 
   it('a full disk on a new observation stores nothing', async () => {
     const cruise = await makeCruise();
-    selectDatabase(db.name()).use(quotaFailure(['observations']));
+    selectDatabase(db.name()).use(quotaFailure((table) => table === 'observations'));
     await deviceId(); // created on first use, before any save; not part of the failed write
     const before = await dumpAll();
     await expect(saveObservation(makeObservation(cruise.id))).rejects.toBeInstanceOf(StorageFullError);

@@ -1,6 +1,7 @@
 // Shared set-up for the database tests: a fresh database per test and an invented cruise.
 // The vessel, cruise and observers are our own demo scenario.
 import { afterEach, beforeEach } from 'vitest';
+import type { DBCore, DBCoreMutateRequest, Middleware } from 'dexie';
 import type { Cruise, Observation } from '../../src/domain/model';
 import { closeFloeDb, createCruise, selectDatabase, type CruiseInput, type FloeDatabaseOptions, type ObservationInput } from '../../src/db';
 
@@ -65,4 +66,28 @@ export async function dumpAll(): Promise<Record<string, unknown[]>> {
   const out: Record<string, unknown[]> = {};
   for (const t of db.tables) out[t.name] = await t.toArray();
   return out;
+}
+
+/**
+ * A Dexie middleware that makes the chosen writes fail as a full disk does in a browser
+ * (QuotaExceededError), for "a failed write changes nothing" tests. `fails` sees each write's
+ * table and its 1-based number among all writes since the middleware was added.
+ */
+export function quotaFailure(fails: (table: string, n: number) => boolean): Middleware<DBCore> {
+  let n = 0;
+  return {
+    stack: 'dbcore',
+    name: 'test-quota-failure',
+    create: (down) => ({
+      ...down,
+      table: (name) => {
+        const t = down.table(name);
+        return {
+          ...t,
+          mutate: (req: DBCoreMutateRequest) =>
+            fails(name, ++n) ? Promise.reject(new DOMException('The quota has been exceeded.', 'QuotaExceededError')) : t.mutate(req),
+        };
+      },
+    }),
+  };
 }
