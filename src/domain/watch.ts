@@ -28,7 +28,10 @@ export interface WatchStatus {
   /** Milliseconds from now to `nextDue`; negative once it has passed. */
   msToDue: number;
   state: WatchState;
-  /** Slots in the look-back window (after the first observation) with no observation, oldest first. */
+  /**
+   * Slots in the look-back window (after the first observation) with no observation, oldest
+   * first; empty when no observation was made within the window (the watch is not running).
+   */
   missed: IsoUtc[];
   /** The latest observation time at or before now, if any. */
   lastObservation: IsoUtc | null;
@@ -108,8 +111,10 @@ export function watchStatus(now: Date | number, times: readonly IsoUtc[], opts: 
   const past = ms.filter((t) => t <= nowMs);
   const first = past.length > 0 ? Math.min(...past) : null;
   const last = past.length > 0 ? Math.max(...past) : null;
+  // A watch whose last observation is older than the look-back window is not running (a
+  // finished cruise, a stay in port): listing a day of missed hours would only be noise.
   const missed =
-    first === null
+    first === null || last === null || last < nowMs - lookback
       ? []
       : missedSlotsBetween(times, opts.intervalMinutes, Math.max(first, nowMs - lookback), nowMs).map(toIsoUtc);
 

@@ -76,8 +76,17 @@ describe('watchStatus', () => {
 
   it('looks back no further than the look-back window', () => {
     // Window 09:10..12:10: the 10:00 and 11:00 slots; 12:00 is still open (overdue).
-    const s = watchStatus(t('2026-03-05T12:10:00Z'), ['2026-03-01T00:00:00Z'], { intervalMinutes: 60, lookbackHours: 3 });
+    const s = watchStatus(t('2026-03-05T12:10:00Z'), ['2026-03-01T00:00:00Z', '2026-03-05T09:20:00Z'], {
+      intervalMinutes: 60,
+      lookbackHours: 3,
+    });
     expect(s.missed).toEqual(['2026-03-05T10:00:00Z', '2026-03-05T11:00:00Z']);
+  });
+
+  it('lists nothing missed when the last observation is older than the look-back window', () => {
+    const s = watchStatus(t('2026-12-02T12:10:00Z'), ['2026-03-01T00:00:00Z'], opts);
+    expect(s.missed).toEqual([]);
+    expect(s.state).toBe('due');
   });
 
   it('with no observation yet, the current slot is due and nothing is missed', () => {
