@@ -239,6 +239,17 @@ export function ObservationForm({ cruise, observations, livePosition, defaultSou
     );
   };
 
+  const pick = <N extends 'traceStage' | 'remainingStage' | 'openWaterKind' | 'meltState'>(
+    name: N,
+    label: string,
+    path: string,
+    options: readonly { value: Exclude<ObservationDraft[N], ''>; label: string; code?: string }[],
+  ) => (
+    <Field id={`f-${name}`} label={label} findings={findingsAt(findings, path)}>
+      <PickList id={`f-${name}`} value={draft[name]} onValue={(v) => setField(name, v as ObservationDraft[N])} options={options} aria-label={label} />
+    </Field>
+  );
+
   const timeFindings = findingsAt(findings, 'time');
   const editedObservation = editing ? observations.find((o) => o.id === editing.id) : undefined;
 
@@ -337,17 +348,11 @@ export function ObservationForm({ cruise, observations, livePosition, defaultSou
         <fieldset className="form-section" data-section="surface">
           <legend>Trace, remaining ice, open water, ponds, bergs</legend>
           <div className="field-row">
-            <Field id="f-traceStage" label="Trace of thicker ice So" findings={findingsAt(findings, 'traceStage')}>
-              <PickList id="f-traceStage" value={draft.traceStage} onValue={(v) => setField('traceStage', v)} options={STAGE_OPTIONS} aria-label="Trace of thicker ice So" />
-            </Field>
-            <Field id="f-remainingStage" label="Remaining thinner ice Sd" findings={findingsAt(findings, 'remainingStage')}>
-              <PickList id="f-remainingStage" value={draft.remainingStage} onValue={(v) => setField('remainingStage', v)} options={STAGE_OPTIONS} aria-label="Remaining thinner ice Sd" />
-            </Field>
+            {pick('traceStage', 'Trace of thicker ice So', 'traceStage', STAGE_OPTIONS)}
+            {pick('remainingStage', 'Remaining thinner ice Sd', 'remainingStage', STAGE_OPTIONS)}
           </div>
           <div className="field-row">
-            <Field id="f-openWaterKind" label="Open water" findings={findingsAt(findings, 'openWater.kind')}>
-              <PickList id="f-openWaterKind" value={draft.openWaterKind} onValue={(v) => setField('openWaterKind', v)} options={OPEN_WATER_OPTIONS} aria-label="Open water" />
-            </Field>
+            {pick('openWaterKind', 'Open water', 'openWater.kind', OPEN_WATER_OPTIONS)}
             {plain('openWaterWidthM', 'Width, m', 'openWater.widthM')}
             {plain('openWaterOrientationDeg', 'Orientation, ° true', 'openWater.orientationDeg')}
           </div>
@@ -355,9 +360,7 @@ export function ObservationForm({ cruise, observations, livePosition, defaultSou
             <Field id="f-meltCover" label="Melt ponds, tenths" findings={findingsAt(findings, 'meltPonds.coverTenths')}>
               <TenthsInput id="f-meltCover" value={draft.meltCover} onValue={field('meltCover')} />
             </Field>
-            <Field id="f-meltState" label="Ponds are" findings={findingsAt(findings, 'meltPonds.state')}>
-              <PickList id="f-meltState" value={draft.meltState} onValue={(v) => setField('meltState', v)} options={MELT_STATE_OPTIONS} aria-label="Ponds are" />
-            </Field>
+            {pick('meltState', 'Ponds are', 'meltPonds.state', MELT_STATE_OPTIONS)}
           </div>
           <div className="field-row">
             {plain('icebergs', 'Icebergs', 'icebergs.icebergs', { mode: 'numeric' })}
