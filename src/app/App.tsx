@@ -9,6 +9,7 @@ import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
 import { LogBackground } from '../features/log/LogBackground';
+import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -83,6 +84,7 @@ export function App() {
       <NavigationNotice />
       <UpdateBanner />
       <LogBackground />
+      <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />
       </main>

@@ -1,4 +1,5 @@
 import { CruiseSetup } from './CruiseSetup';
+import { StoragePanel } from './StoragePanel';
 
 export function SettingsScreen() {
   return (
@@ -6,6 +7,7 @@ export function SettingsScreen() {
       <h2 id="settings-title">Settings</h2>
       <p>Settings: cruise, vessel, observers, storage and display.</p>
       <CruiseSetup />
+      <StoragePanel />
     </section>
   );
 }
