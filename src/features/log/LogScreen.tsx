@@ -51,9 +51,10 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
   let livePosition: Position | null = null;
   if (source === 'gps-serial' && fix && fixAgeS(fixAtMs, fix.ageMs, now.getTime()) <= GPS_MAX_AGE_S) {
     livePosition = { lat: fix.lat, lon: fix.lon, source: 'gps-serial', ...(fix.time ? { fixTime: fix.time } : {}) };
-  } else if (source === 'track-interpolated') {
-    livePosition = trackPosition;
+  } else if (source === 'track-interpolated' && trackPosition?.ok) {
+    livePosition = { ...trackPosition.position, fixTime: obsTime };
   }
+  const trackReason = source === 'track-interpolated' && trackPosition && !trackPosition.ok ? trackPosition.reason : null;
 
   const select = useSelection((s) => s.select);
 
@@ -75,7 +76,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
           Brought back the entry in progress (kept {restored.replace('T', ' ').slice(0, 19)} UTC).
         </p>
       )}
-      <ObservationForm cruise={cruise} observations={observations} livePosition={livePosition} defaultSource={defaultSource} />
+      <ObservationForm cruise={cruise} observations={observations} livePosition={livePosition} positionNote={trackReason} defaultSource={defaultSource} />
       <p className="muted small autosave-line" aria-live="polite">
         {autosave.kind === 'saved' && `Draft kept ${autosave.at.slice(11, 19)} UTC.`}
         {autosave.kind === 'failed' && <span className="finding finding-error">The draft could not be kept: {autosave.message}</span>}

@@ -30,6 +30,8 @@ interface Props {
   observations: readonly Observation[];
   /** The live position of the draft's source (GPS fix, track at the observation time). */
   livePosition: Position | null;
+  /** Why the chosen source has no position, when it has none (e.g. outside the track). */
+  positionNote?: string | null;
   /** The source to start a new entry with (the GPS when connected, else the track, else typed). */
   defaultSource: Position['source'];
 }
@@ -65,7 +67,7 @@ export function controlIdForPath(path: string, draft: ObservationDraft): string 
   return PLAIN_PATH_FIELDS[path] ?? (path.startsWith('position') ? 'f-position' : null);
 }
 
-export function ObservationForm({ cruise, observations, livePosition, defaultSource }: Props) {
+export function ObservationForm({ cruise, observations, livePosition, positionNote = null, defaultSource }: Props) {
   const draft = useObservationForm((s) => s.draft);
   const editing = useObservationForm((s) => s.editing);
   const dirty = useObservationForm((s) => s.dirty);
@@ -309,7 +311,7 @@ export function ObservationForm({ cruise, observations, livePosition, defaultSou
               </button>
             </div>
           </Field>
-          <PositionField cruise={cruise} reading={reading.observation.position} livePosition={livePosition} findings={findingsAt(findings, 'position')} />
+          <PositionField reading={reading.observation.position} livePosition={livePosition} note={positionNote} findings={findingsAt(findings, 'position')} />
           <Field id="f-observer" label="Observer" hint="type" findings={findingsAt(findings, 'observerId')}>
             <PickList id="f-observer" value={draft.observerId} onValue={(v) => setField('observerId', v)} options={observerOptions(cruise.observers)} allowEmpty={false} aria-label="Observer" />
           </Field>

@@ -9,7 +9,7 @@ import type { Cruise, Finding, Observation } from '../../domain/model';
 import { polarisForObservation } from '../../domain/polaris';
 import { groupMissed, missedSlotsBetween, type MissedRun } from '../../domain/watch';
 import { useSelection } from '../../state/selection';
-import { observationFindings } from './findings';
+import { cruiseFindings } from './findings';
 import { showPosition } from './positionText';
 
 export type ListRow =
@@ -26,6 +26,7 @@ export function buildRows(cruise: Cruise, observations: readonly Observation[]):
     first && last
       ? groupMissed(missedSlotsBetween(asc.map((o) => o.time), cruise.intervalMinutes, Date.parse(first.time), Date.parse(last.time)), cruise.intervalMinutes)
       : [];
+  const findings = cruiseFindings(cruise, asc);
   let m = missed.length - 1;
   for (let i = asc.length - 1; i >= 0; i--) {
     const o = asc[i] as Observation;
@@ -40,7 +41,7 @@ export function buildRows(cruise: Cruise, observations: readonly Observation[]):
       egg: eggCodeText(deriveEggCode(o)),
       rio: polaris.ok ? polaris.value.rio : null,
       outcome: polaris.ok ? polaris.value.outcome : null,
-      findings: observationFindings(o, cruise, asc).filter((f) => f.severity !== 'info'),
+      findings: (findings.get(o.id) ?? []).filter((f) => f.severity !== 'info'),
     });
   }
   return rows;

@@ -2,21 +2,22 @@
 // geolocation, typed by hand in any format the domain reads, or the imported track at the
 // observation time. The source is stored with the position.
 import { useState } from 'react';
-import { POSITION_SOURCES, type Cruise, type Finding, type Position, type PositionSource } from '../../domain/model';
+import { type Finding, type Position, type PositionSource } from '../../domain/model';
 import { useObservationForm } from '../../state/observationForm';
 import { describedBy, Field } from './Field';
-import { POSITION_SOURCE_LABELS } from './options';
+import { OBSERVATION_POSITION_SOURCES, POSITION_SOURCE_LABELS } from './options';
 import { showPosition } from './positionText';
 
 interface Props {
-  cruise: Cruise;
   /** The position the entry will be saved with. */
   reading: Position | null;
   livePosition: Position | null;
+  /** Why the source has no position, if it has none. */
+  note: string | null;
   findings: readonly Finding[];
 }
 
-export function PositionField({ reading, livePosition, findings }: Props) {
+export function PositionField({ reading, livePosition, note, findings }: Props) {
   const source = useObservationForm((s) => s.draft.positionSource);
   const text = useObservationForm((s) => s.draft.positionText);
   const held = useObservationForm((s) => s.draft.position);
@@ -55,7 +56,7 @@ export function PositionField({ reading, livePosition, findings }: Props) {
     <div className="position-field">
       <Field id="f-position-source" label="Position from" findings={[]}>
         <select id="f-position-source" value={source} onChange={(e) => choose(e.currentTarget.value as PositionSource)}>
-          {POSITION_SOURCES.map((s) => (
+          {OBSERVATION_POSITION_SOURCES.map((s) => (
             <option key={s} value={s}>
               {POSITION_SOURCE_LABELS[s]}
             </option>
@@ -90,7 +91,7 @@ export function PositionField({ reading, livePosition, findings }: Props) {
           </div>
           <p className="muted small">
             {source === 'gps-serial' && (livePosition ? 'Latest fix of the ship GPS.' : 'No GPS fix: connect the GPS under "Ship GPS".')}
-            {source === 'track-interpolated' && (livePosition ? 'Along the imported track at the observation time.' : 'The track does not cover the observation time.')}
+            {source === 'track-interpolated' && (livePosition ? 'Along the track at the observation time.' : `No position from the track: ${note ?? 'it does not cover the observation time'}.`)}
             {source === 'geolocation' && (locating ?? (held?.accuracyM !== undefined ? `Accuracy about ${held.accuracyM} m.` : ''))}
           </p>
         </Field>

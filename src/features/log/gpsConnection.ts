@@ -3,12 +3,13 @@
 // every `trackIntervalS` seconds while connected.
 import { addTrackPoints } from '../../db';
 import { describeNmeaError } from '../../gps/nmea';
-import { isoFromMs } from '../../gps/tracker';
+import { TrackRecorder } from '../../gps/trackPosition';
 import { connectSerialGps, isWebSerialAvailable, requestSerialPort, type SerialGpsConnection, type SerialPortLike } from '../../gps/webSerial';
 import { useGpsStore } from '../../state/gps';
 
 let connection: SerialGpsConnection | null = null;
-let lastTrackMs = 0;
+let recorder: TrackRecorder | null = null;
+let recorderInterval = 0;
 
 export function webSerialAvailable(): boolean {
   return isWebSerialAvailable();
@@ -34,26 +35,23 @@ export async function connectGps(cruiseId: string, port?: SerialPortLike): Promi
     store.patch({ status: 'disconnected', message: 'No port chosen.' });
     return;
   }
-  lastTrackMs = 0;
+  recorder = null;
   try {
     connection = await connectSerialGps(chosen, {
       baudRate: useGpsStore.getState().baudRate,
       onFix: (fix) => {
         const nowMs = Date.now();
         useGpsStore.getState().patch({ fix, fixAtMs: nowMs });
-        const interval = useGpsStore.getState().trackIntervalS * 1000;
-        if (nowMs - lastTrackMs >= interval) {
-          lastTrackMs = nowMs;
-          const time = fix.time ?? isoFromMs(nowMs);
-          void addTrackPoints([
-            {
-              cruiseId, time, lat: fix.lat, lon: fix.lon, source: 'gps-serial',
-              ...(fix.sogKn !== null ? { sogKn: fix.sogKn } : {}),
-              ...(fix.cogDeg !== null ? { cogDeg: fix.cogDeg } : {}),
-              ...(fix.headingDeg !== null ? { headingDeg: fix.headingDeg } : {}),
-            },
-          ]).then(
-            () => useGpsStore.getState().patch({ lastTrackWrite: time }),
+        const intervalMs = useGpsStore.getState().trackIntervalS * 1000;
+        // A new interval chosen while connected takes effect at once.
+        if (!recorder || recorderInterval !== intervalMs) {
+          recorder = new TrackRecorder({ cruiseId, source: 'gps-serial', intervalMs });
+          recorderInterval = intervalMs;
+        }
+        const point = recorder.offer(fix, nowMs);
+        if (point) {
+          void addTrackPoints([point]).then(
+            () => useGpsStore.getState().patch({ lastTrackWrite: point.time }),
             (err: unknown) => useGpsStore.getState().patch({ message: `Track point not stored: ${err instanceof Error ? err.message : String(err)}` }),
           );
         }

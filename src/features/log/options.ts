@@ -39,7 +39,11 @@ export const POSITION_SOURCE_LABELS: Record<PositionSource, string> = {
   geolocation: 'This device (geolocation)',
   manual: 'Typed by hand',
   'track-interpolated': 'From the imported track',
+  'track-file': 'A point of a track file',
 };
+
+/** The sources an observer can take a position from (a track file's points are interpolated). */
+export const OBSERVATION_POSITION_SOURCES: readonly PositionSource[] = ['gps-serial', 'geolocation', 'manual', 'track-interpolated'];
 
 export function observerOptions(observers: readonly Observer[]): PickOption[] {
   return observers.map((o) => ({ value: o.id, label: `${o.name} (${o.initials})`, code: o.initials }));
