@@ -8,6 +8,8 @@ import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
+import { LogBackground } from '../features/log/LogBackground';
+import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -81,6 +83,8 @@ export function App() {
       </header>
       <NavigationNotice />
       <UpdateBanner />
+      <LogBackground />
+      <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />
       </main>
