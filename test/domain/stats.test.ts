@@ -61,7 +61,7 @@ describe('a four-observation log, hand-computed', () => {
   const o1 = obs(0, 'A', 0, [], 69.9, { weather: { airTempC: -5, waterTempC: 0.5 } });
   const o2 = obs(1, 'A', 3, [{ partialConcentration: 0, stage: 'grey', thicknessCm: 12 }], 70.0, { weather: { airTempC: -6 } });
   const o3 = obs(2, 'B', 9, [
-    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150, ridgedTenths: 2 },
+    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150, ridgedTenths: 2, sailHeightM: 1 },
     { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20, ridgedTenths: 0 },
   ], 70.6);
   const o4 = obs(5, 'B', 10, [{ partialConcentration: 10, stage: 'medium-first-year', thicknessCm: 110 }], 71.2);
@@ -119,7 +119,11 @@ describe('a four-observation log, hand-computed', () => {
     ]);
     // Ridged share where recorded (o3 only): (6 * 0.2 + 3 * 0) / 9 = 0.1333...
     expect(s.ice.ridgedShare).toBeCloseTo(1.2 / 9, 12);
-    expect(s.ice.meanThicknessWithRidgesCm).toBeNull();
+    // With ridges (ridges.ts, Timco and Burden 1997 ratios): first-year ridge mean thickness
+    // 2.475 x 1 m sail = 247.5 cm; o3 thick FY: 0.8 x 150 + 0.2 x 247.5 = 169.5 cm, 19.5 more
+    // than level, weight 6: (2096 + 6 x 19.5) / 22.
+    expect(s.ice.meanThicknessWithRidgesCm).toBeCloseTo((2096 + 6 * 19.5) / 22, 10);
+    expect(reviewCruise({ ...input, ridgeEstimate: null }).summary.ice.meanThicknessWithRidgesCm).toBeNull();
   });
 
   it('POLARIS for PC7 (IMO MSC.1/Circ.1519 Table 1.3, PC7 row: ice free 3, grey 2, grey-white 2, medium FY -1, thick FY -2)', () => {

@@ -3,6 +3,7 @@
 import { METRES_PER_NM } from '../geodesy.ts';
 import type { Cruise, IsoUtc, Observation, Observer, TrackPoint, VesselIceClass } from '../model.ts';
 import { POLARIS_OUTCOME_LABELS, type PolarisOutcome } from '../polaris.ts';
+import { equivalentThickness } from '../ridges.ts';
 import { attributeTime, type ObservationGap } from './attribution.ts';
 import { LatitudeBandBuilder, type LatitudeBandTable } from './bands.ts';
 import { buildDistanceTimelineFromColumns, distanceBetween, EMPTY_TIMELINE, type DistanceSource, type DistanceTimeline } from './distanceTimeline.ts';
@@ -25,7 +26,10 @@ export interface ReviewInput {
    * handover table always use every observation, so a filter never turns a watch change into a gap.
    */
   include?: (o: Observation) => boolean;
-  /** Thickness of a category with its ridges; without it the ridge figures stay null. */
+  /**
+   * Thickness of a category with its ridges. Default: the equivalent thickness of ridges.ts
+   * (ridged and rafted shares, keel from the sail height; an estimate). Null: no ridge figures.
+   */
   ridgeEstimate?: RidgeThicknessEstimate | null;
 }
 
@@ -155,13 +159,16 @@ function timelineFor(obs: readonly Observation[], times: Float64Array, track: re
   return tl.source === 'none' ? EMPTY_TIMELINE : tl;
 }
 
+/** ridges.ts equivalent thickness (an estimate, see there). */
+export const defaultRidgeEstimate: RidgeThicknessEstimate = (c) => equivalentThickness(c)?.equivalentCm ?? null;
+
 const observerName = (observers: readonly Observer[], id: string): Observer =>
   observers.find((o) => o.id === id) ?? { id, name: `Unknown observer (${id.slice(0, 8)})`, initials: '?' };
 
 export function reviewCruise(input: ReviewInput): CruiseReview {
   const { cruise } = input;
   const include = input.include ?? (() => true);
-  const ridgeEstimate = input.ridgeEstimate ?? null;
+  const ridgeEstimate = input.ridgeEstimate === undefined ? defaultRidgeEstimate : input.ridgeEstimate;
   const { obs, times } = liveInTimeOrder(input.observations);
   const n = obs.length;
   const att = attributeTime(times, cruise.intervalMinutes);
