@@ -3,7 +3,8 @@
 // data (makeDemoCruise), mark a finding reviewed, and print the report to PDF.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApp, type AppSession } from './harness/browser';
-import { showScreen } from './harness/screens';
+import { runAxe } from './harness/pwa';
+import { THEMES, setTheme, showScreen } from './harness/screens';
 import { makeDemoCruise } from '../../src/domain/demo';
 import { collectFindings, latitudeBandLabel, reviewCruise } from '../../src/domain/stats';
 
@@ -72,6 +73,17 @@ describe('cruise review of the demo cruise', () => {
     await item.getByTestId('finding-review').waitFor();
     expect(await item.getByTestId('finding-review').innerText()).toContain('rafted pancakes');
     expect(await page.getByTestId('findings-count').innerText()).toContain(`${findings.length} findings, 1 reviewed`);
+  });
+
+  it('has no serious or critical accessibility violation with the cruise loaded (axe-core), in every display', async () => {
+    const { page } = app;
+    const blocking: string[] = [];
+    for (const theme of THEMES) {
+      await setTheme(page, theme);
+      for (const f of await runAxe(page)) if (f.impact === 'serious' || f.impact === 'critical') blocking.push(`${theme}: ${f.id} at ${f.nodes.slice(0, 3).join(', ')}`);
+    }
+    await setTheme(page, 'day');
+    expect(blocking).toEqual([]);
   });
 
   it('opens a finding on the map', async () => {
