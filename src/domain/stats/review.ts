@@ -3,7 +3,7 @@
 import { METRES_PER_NM } from '../geodesy.ts';
 import type { Cruise, IsoUtc, Observation, Observer, TrackPoint, VesselIceClass } from '../model.ts';
 import { POLARIS_OUTCOME_LABELS, type PolarisOutcome } from '../polaris.ts';
-import { equivalentThickness } from '../ridges.ts';
+import { equivalentThicknessCm } from './ridgeEstimate.ts';
 import { attributeTime, type ObservationGap } from './attribution.ts';
 import { LatitudeBandBuilder, type LatitudeBandTable } from './bands.ts';
 import { buildDistanceTimelineFromColumns, distanceBetween, EMPTY_TIMELINE, type DistanceSource, type DistanceTimeline } from './distanceTimeline.ts';
@@ -160,7 +160,7 @@ function timelineFor(obs: readonly Observation[], times: Float64Array, track: re
 }
 
 /** ridges.ts equivalent thickness (an estimate, see there). */
-export const defaultRidgeEstimate: RidgeThicknessEstimate = (c) => equivalentThickness(c)?.equivalentCm ?? null;
+export const defaultRidgeEstimate: RidgeThicknessEstimate = equivalentThicknessCm;
 
 const observerName = (observers: readonly Observer[], id: string): Observer =>
   observers.find((o) => o.id === id) ?? { id, name: `Unknown observer (${id.slice(0, 8)})`, initials: '?' };
