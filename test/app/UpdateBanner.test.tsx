@@ -18,8 +18,8 @@ describe('update banner', () => {
     const user = userEvent.setup();
     const a = actions();
     render(<UpdateBannerView state={state('waiting')} actions={a} />);
-    expect(screen.getByRole('status')).toHaveTextContent('A new version of Floe Ledger is ready');
-    expect(screen.getByRole('status')).toHaveTextContent('draft observation is kept');
+    expect(screen.getByRole('region', { name: 'App version' })).toHaveTextContent('A new version of Floe Ledger is ready');
+    expect(screen.getByRole('region', { name: 'App version' })).toHaveTextContent('draft observation is kept');
     expect(a.apply).not.toHaveBeenCalled();
     await user.click(screen.getByRole('button', { name: 'Later' }));
     expect(a.postpone).toHaveBeenCalledOnce();
@@ -30,12 +30,12 @@ describe('update banner', () => {
 
   it('names why an update was held back', () => {
     render(<UpdateBannerView state={state('waiting', 'open work could not be saved first')} actions={actions()} />);
-    expect(screen.getByRole('status')).toHaveTextContent('Not updated: open work could not be saved first.');
+    expect(screen.getByRole('region', { name: 'App version' })).toHaveTextContent('Not updated: open work could not be saved first.');
   });
 
   it('after an update, names the build now running', () => {
     render(<UpdateBannerView state={state('updated')} actions={actions()} />);
-    expect(screen.getByRole('status')).toHaveTextContent('build b-42');
+    expect(screen.getByRole('region', { name: 'App version' })).toHaveTextContent('build b-42');
   });
 
   it('tells a window that another one applied the update, and offers a reload', async () => {
