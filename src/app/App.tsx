@@ -8,6 +8,7 @@ import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
+import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -81,6 +82,7 @@ export function App() {
       </header>
       <NavigationNotice />
       <UpdateBanner />
+      <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />
       </main>
