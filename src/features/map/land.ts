@@ -9,7 +9,7 @@
 // hole follows its outer ring, so the Caspian stays inside Eurasia). Coastlines are built as a
 // separate line set that leaves out the seam and pole edges, because a polygon's outline would
 // draw a false line along the seam.
-import type { Feature, FeatureCollection, MultiLineString, MultiPolygon, Polygon, Position } from 'geojson';
+import type { FeatureCollection, MultiLineString, MultiPolygon, Polygon, Position } from 'geojson';
 import { feature } from 'topojson-client';
 import type { GeometryCollection, Topology } from 'topojson-specification';
 
@@ -182,8 +182,9 @@ export function coastlines(geometry: MultiPolygon | Polygon): MultiLineString {
 export function landFromTopology(topology: Topology): { land: FeatureCollection<MultiPolygon>; coast: FeatureCollection<MultiLineString> } {
   const object = topology.objects.land as GeometryCollection | undefined;
   if (!object) throw new Error('world-atlas topology has no "land" object');
-  const fc = feature(topology, object);
-  const geometries = (fc.type === 'FeatureCollection' ? fc.features : [fc as Feature])
+  // A GeometryCollection object always comes back as a FeatureCollection.
+  const fc: FeatureCollection = feature(topology, object);
+  const geometries = fc.features
     .map((f) => f.geometry)
     .filter((g): g is MultiPolygon | Polygon => g !== null && (g.type === 'MultiPolygon' || g.type === 'Polygon'));
   return {
