@@ -3,6 +3,7 @@
 import type { Feature, FeatureCollection, LineString, MultiLineString, Point, Position } from 'geojson';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
 import { band, bandOfObservation, hexColour, inMarginalIceZone, type BandKey } from './concentrationBands';
+import { mizFeatures, pieceCoords, range, seamPieces, type TrackArrays } from './trackLevels';
 
 export interface ObservationProps {
   /** The observation id, promoted to the feature id for feature state (selection). */
@@ -66,34 +67,34 @@ export function sortedTrack(track: readonly TrackPoint[]): TrackPoint[] {
  * crosses 180 degrees or circles a pole.
  */
 export function splitAtAntimeridian(points: readonly Position[]): Position[][] {
-  const pieces: Position[][] = [];
-  let current: Position[] = [];
-  for (let i = 0; i < points.length; i++) {
-    const p = points[i] as Position;
-    const prev = points[i - 1];
-    if (prev) {
-      const x0 = prev[0] as number;
-      let x1 = p[0] as number;
-      const d = x1 - x0;
-      if (Math.abs(d) > 180) {
-        x1 += d > 0 ? -360 : 360;
-        const edge = x1 > x0 ? 180 : -180;
-        const f = (edge - x0) / (x1 - x0);
-        const lat = (prev[1] as number) + f * ((p[1] as number) - (prev[1] as number));
-        current.push([edge, lat]);
-        if (current.length >= 2) pieces.push(current);
-        current = [[-edge, lat]];
-      }
-    }
-    current.push([p[0] as number, p[1] as number]);
-  }
-  if (current.length >= 2) pieces.push(current);
-  return pieces;
+  const line = { lon: Float64Array.from(points, (p) => p[0] as number), lat: Float64Array.from(points, (p) => p[1] as number) };
+  return seamPieces(line.lon)
+    .map((p) => pieceCoords(line, p, range(p[0], p[1])))
+    .filter((c) => c.length >= 2);
 }
 
 export function trackFeature(track: readonly TrackPoint[]): Feature<MultiLineString> {
   const coords = sortedTrack(track).map((p) => [p.lon, p.lat]);
   return { type: 'Feature', properties: {}, geometry: { type: 'MultiLineString', coordinates: splitAtAntimeridian(coords) } };
+}
+
+/** The track as typed arrays in time order, as the track worker takes it. */
+export function trackArrays(track: readonly TrackPoint[]): TrackArrays {
+  const sorted = sortedTrack(track);
+  return {
+    t: Float64Array.from(sorted, (p) => timeMs(p.time)),
+    lon: Float64Array.from(sorted, (p) => p.lon),
+    lat: Float64Array.from(sorted, (p) => p.lat),
+  };
+}
+
+/** Observation times (ascending) and whether each is in the marginal ice zone. */
+export function observationZones(observations: readonly Observation[]): { t: Float64Array; miz: Uint8Array } {
+  const obs = observations
+    .filter((o) => !o.deleted)
+    .map((o) => ({ t: timeMs(o.time), miz: inMarginalIceZone(o.totalConcentration) ? 1 : 0 }))
+    .sort((a, b) => a.t - b.t);
+  return { t: Float64Array.from(obs, (o) => o.t), miz: Uint8Array.from(obs, (o) => o.miz) };
 }
 
 /**
@@ -106,28 +107,8 @@ export function marginalIceZoneStretches(
   observations: readonly Observation[],
   maxGapMs: number,
 ): FeatureCollection<MultiLineString> {
-  const obs = observations
-    .filter((o) => !o.deleted)
-    .map((o) => ({ t: timeMs(o.time), miz: inMarginalIceZone(o.totalConcentration) }))
-    .sort((a, b) => a.t - b.t);
-  const points = sortedTrack(track);
-  const features: Feature<MultiLineString>[] = [];
-  let run: Position[] = [];
-  const flush = () => {
-    if (run.length >= 2) features.push({ type: 'Feature', properties: {}, geometry: { type: 'MultiLineString', coordinates: splitAtAntimeridian(run) } });
-    run = [];
-  };
-  let j = 0;
-  for (const p of points) {
-    const t = timeMs(p.time);
-    while (j + 1 < obs.length && Math.abs((obs[j + 1] as { t: number }).t - t) <= Math.abs((obs[j] as { t: number }).t - t)) j++;
-    const nearest = obs[j];
-    const inZone = nearest !== undefined && Math.abs(nearest.t - t) <= maxGapMs && nearest.miz;
-    if (inZone) run.push([p.lon, p.lat]);
-    else flush();
-  }
-  flush();
-  return { type: 'FeatureCollection', features };
+  const zones = observationZones(observations);
+  return mizFeatures(trackArrays(track), zones.t, zones.miz, maxGapMs);
 }
 
 /** Initial bearing from one position to another, degrees true (spherical, good to a fraction of a degree over a few km). */
