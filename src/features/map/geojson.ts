@@ -3,7 +3,7 @@
 import type { Feature, FeatureCollection, LineString, MultiLineString, Point, Position } from 'geojson';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
 import { band, bandOfObservation, hexColour, inMarginalIceZone, type BandKey } from './concentrationBands';
-import { mizFeatures, pieceCoords, range, seamPieces, type TrackArrays } from './trackLevels';
+import { beyondMercator, mizFeatures, pieceCoords, range, seamPieces, type TrackArrays } from './trackLevels';
 
 export interface ObservationProps {
   /** The observation id, promoted to the feature id for feature state (selection). */
@@ -16,11 +16,13 @@ export interface ObservationProps {
   initials: string;
   /** Egg code image key, or empty when there is no egg code to draw. */
   egg: string;
+  /** Poleward of the Mercator limit: drawn by the polar overlay, not by the map's layers. */
+  polar: boolean;
 }
 
 export interface BuildOptions {
   observers?: readonly Observer[];
-  /** The egg code of an observation as a compact image key ('' for none). */
+  /** The egg code image key of an observation ('' for none); by default `egg:<id>`, drawn on demand. */
   eggKey?: (o: Observation) => string;
 }
 
@@ -45,7 +47,8 @@ export function observationFeatures(observations: readonly Observation[], opts: 
         t: timeMs(o.time),
         observerId: o.observerId,
         initials: initials.get(o.observerId) ?? '',
-        egg: opts.eggKey ? opts.eggKey(o) : '',
+        egg: opts.eggKey ? opts.eggKey(o) : `egg:${o.id}`,
+        polar: beyondMercator(o.position.lat),
       },
     });
   }

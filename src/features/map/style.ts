@@ -11,7 +11,7 @@ import type {
   StyleSpecification,
 } from 'maplibre-gl';
 import type { FeatureCollection } from 'geojson';
-import { GRATICULE_LEVELS } from './graticule';
+import { graticuleFilter } from './graticule';
 import { TRACK_LEVELS } from './trackLevels';
 
 export type MapTheme = 'day' | 'night' | 'red';
@@ -22,6 +22,7 @@ export interface Palette {
   land: string;
   coast: string;
   graticule: string;
+  label: string;
   track: string;
   miz: string;
   stroke: string;
@@ -31,9 +32,9 @@ export interface Palette {
 
 /** Our own palettes; the observation colours stay the standard ones in every theme. */
 export const PALETTES: Record<MapTheme, Palette> = {
-  day: { ocean: '#d6e2ec', land: '#bdb6a4', coast: '#5d5a52', graticule: '#7f93a6', track: '#1d2733', miz: '#b02cc4', stroke: '#10161d', selected: '#00e5ff', ship: '#111111' },
-  night: { ocean: '#0a141d', land: '#2a3038', coast: '#6c7784', graticule: '#34475a', track: '#b9c7d4', miz: '#b86bd0', stroke: '#000000', selected: '#00e5ff', ship: '#e8eef4' },
-  red: { ocean: '#000000', land: '#200000', coast: '#6d0000', graticule: '#3a0000', track: '#c43030', miz: '#902060', stroke: '#000000', selected: '#ff8080', ship: '#ff6060' },
+  day: { ocean: '#d6e2ec', land: '#bdb6a4', coast: '#5d5a52', graticule: '#7f93a6', label: '#33475a', track: '#1d2733', miz: '#b02cc4', stroke: '#10161d', selected: '#00e5ff', ship: '#111111' },
+  night: { ocean: '#0a141d', land: '#2a3038', coast: '#6c7784', graticule: '#34475a', label: '#8c9cab', track: '#b9c7d4', miz: '#b86bd0', stroke: '#000000', selected: '#00e5ff', ship: '#e8eef4' },
+  red: { ocean: '#000000', land: '#200000', coast: '#6d0000', graticule: '#3a0000', label: '#a02828', track: '#c43030', miz: '#902060', stroke: '#000000', selected: '#ff8080', ship: '#ff6060' },
 };
 
 /** Zoom at which the finer Natural Earth land (1:50m) takes over from the coarse (1:110m). */
@@ -55,6 +56,8 @@ export const SRC = {
 } as const;
 
 export const LAYER = {
+  graticule: 'graticule',
+  graticuleLabels: 'graticule-labels',
   observations: 'observations',
   egg: 'egg-codes',
   ship: 'ship-heading',
@@ -83,19 +86,21 @@ export function projectionSpec(kind: ProjectionKind): ProjectionSpecification {
   return { type: kind };
 }
 
+/** Observations beyond the Mercator limit are the polar overlay's to draw. */
+const NOT_POLAR: ExpressionSpecification = ['!=', ['get', 'polar'], true];
+
 const SELECTED: ExpressionSpecification = ['boolean', ['feature-state', 'selected'], false];
 
 export function buildStyle(input: StyleInput): StyleSpecification {
   const p = PALETTES[input.theme];
-  const graticuleLayers: LayerSpecification[] = GRATICULE_LEVELS.map((l, i) => ({
-    id: `graticule-${l.step}`,
+  const graticuleLayer: LayerSpecification = {
+    id: LAYER.graticule,
     type: 'line',
     source: SRC.graticule,
-    minzoom: l.minZoom,
-    ...(i + 1 < GRATICULE_LEVELS.length ? { maxzoom: (GRATICULE_LEVELS[i + 1] as { minZoom: number }).minZoom } : {}),
-    filter: ['<=', ['get', 'level'], i],
+    // The controller sets the filter for each view; this one is the first view's.
+    filter: graticuleFilter({ lat: 30, lon: 30 }),
     paint: { 'line-color': p.graticule, 'line-width': ['case', ['==', ['get', 'level'], 0], 1, 0.6] },
-  }));
+  };
   const trackLayers: LayerSpecification[] = TRACK_LEVELS.map((l, i) => ({
     id: `${LAYER.track}-${i}`,
     type: 'line',
@@ -127,11 +132,11 @@ export function buildStyle(input: StyleInput): StyleSpecification {
       // No fill outline: on the globe a polygon outline draws a false line along the seam.
       { id: 'land-coarse', type: 'fill', source: SRC.land110, maxzoom: FINE_LAND_ZOOM, paint: { 'fill-color': p.land, 'fill-antialias': false } },
       { id: 'land-fine', type: 'fill', source: SRC.land50, minzoom: FINE_LAND_ZOOM, paint: { 'fill-color': p.land, 'fill-antialias': false } },
-      ...graticuleLayers,
+      graticuleLayer,
       { id: 'coast-coarse', type: 'line', source: SRC.coast110, maxzoom: FINE_LAND_ZOOM, paint: { 'line-color': p.coast, 'line-width': 0.7 } },
       { id: 'coast-fine', type: 'line', source: SRC.coast50, minzoom: FINE_LAND_ZOOM, paint: { 'line-color': p.coast, 'line-width': 0.8 } },
       {
-        id: 'graticule-labels',
+        id: LAYER.graticuleLabels,
         type: 'symbol',
         source: SRC.graticuleLabels,
         layout: { 'icon-image': ['get', 'text'], 'icon-padding': 4, 'icon-allow-overlap': false },
@@ -148,6 +153,7 @@ export function buildStyle(input: StyleInput): StyleSpecification {
         id: LAYER.observations,
         type: 'circle',
         source: SRC.observations,
+        filter: NOT_POLAR,
         paint: {
           'circle-color': ['get', 'colour'],
           'circle-radius': ['interpolate', ['linear'], ['zoom'], 0, ['case', SELECTED, 8, 4], 6, ['case', SELECTED, 10, 6], 10, ['case', SELECTED, 13, 8]],
@@ -161,7 +167,7 @@ export function buildStyle(input: StyleInput): StyleSpecification {
         type: 'symbol',
         source: SRC.observations,
         minzoom: EGG_MIN_ZOOM,
-        filter: ['!=', ['get', 'egg'], ''],
+        filter: ['all', ['!=', ['get', 'egg'], ''], NOT_POLAR],
         layout: { 'icon-image': ['get', 'egg'], 'icon-anchor': 'left', 'icon-offset': [12, 0], 'icon-padding': 2 },
       },
       {
@@ -206,9 +212,15 @@ export function observationFilter(f: ObservationFilter): FilterSpecification | n
   return parts.length === 1 ? (parts[0] as FilterSpecification) : ['all', ...parts];
 }
 
-/** The egg layer's filter: its own condition and the shared one. */
+/** The symbol layer's filter: the polar rule and the shared filter. */
+export function observationLayerFilter(f: ObservationFilter): FilterSpecification {
+  const shared = observationFilter(f);
+  return shared ? ['all', NOT_POLAR, shared as ExpressionSpecification] : NOT_POLAR;
+}
+
+/** The egg layer's filter: its own condition, the polar rule and the shared one. */
 export function eggFilter(f: ObservationFilter): FilterSpecification {
   const shared = observationFilter(f);
   const own: ExpressionSpecification = ['!=', ['get', 'egg'], ''];
-  return shared ? ['all', own, shared as ExpressionSpecification] : own;
+  return shared ? ['all', own, NOT_POLAR, shared as ExpressionSpecification] : ['all', own, NOT_POLAR];
 }

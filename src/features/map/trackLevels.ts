@@ -11,6 +11,62 @@ export const TRACK_LEVELS: readonly { minZoom: number; maxZoom: number }[] = [
   { minZoom: 10, maxZoom: 24 },
 ];
 
+/**
+ * The latitude where Web Mercator ends. MapLibre draws its sources in Mercator tiles, on the
+ * globe too, so anything poleward of this would be pinned to the tile edge: such parts are
+ * drawn by the polar overlay instead (polarOverlay.ts).
+ */
+export const MERCATOR_LIMIT_LAT = 85.051129;
+
+export function beyondMercator(lat: number): boolean {
+  return Math.abs(lat) > MERCATOR_LIMIT_LAT;
+}
+
+/** A line cut where it crosses the Mercator limit, the crossings interpolated, into the parts inside and beyond. */
+export function clipAtMercatorLimit(line: readonly Position[]): { inside: Position[][]; beyond: Position[][] } {
+  const inside: Position[][] = [];
+  const beyond: Position[][] = [];
+  let current: Position[] = [];
+  let out: boolean | null = null;
+  for (let i = 0; i < line.length; i++) {
+    const p = line[i] as Position;
+    const b = beyondMercator(p[1] as number);
+    if (out !== null && b !== out) {
+      const q = line[i - 1] as Position;
+      const edge = Math.sign((b ? p[1] : q[1]) as number) * MERCATOR_LIMIT_LAT;
+      const f = (edge - (q[1] as number)) / ((p[1] as number) - (q[1] as number));
+      const cross: Position = [(q[0] as number) + f * ((p[0] as number) - (q[0] as number)), edge];
+      current.push(cross);
+      if (current.length >= 2) (out ? beyond : inside).push(current);
+      current = [cross];
+    }
+    current.push([p[0] as number, p[1] as number]);
+    out = b;
+  }
+  if (current.length >= 2 && out !== null) (out ? beyond : inside).push(current);
+  return { inside, beyond };
+}
+
+function clipAll(lines: Position[][]): { inside: Position[][]; beyond: Position[][] } {
+  const inside: Position[][] = [];
+  const beyond: Position[][] = [];
+  for (const l of lines) {
+    const c = clipAtMercatorLimit(l);
+    inside.push(...c.inside);
+    beyond.push(...c.beyond);
+  }
+  return { inside, beyond };
+}
+
+/** The parts of the track and zone stretches poleward of the Mercator limit, for the overlay. */
+export interface PolarParts {
+  track: Position[][];
+  miz: Position[][];
+}
+
+/** The overlay's track detail: the level drawn between these zooms is fine enough for it. */
+const POLAR_LEVEL = 2;
+
 export interface TrackArrays {
   /** Milliseconds since 1970, ascending. */
   t: Float64Array;
@@ -123,8 +179,11 @@ export function pieceCoords(a: Pick<TrackArrays, 'lon' | 'lat'>, piece: [number,
   return coords;
 }
 
-/** The track at every level of TRACK_LEVELS, one feature per level with its `level` index. */
-export function trackLevels(a: TrackArrays): FeatureCollection<MultiLineString, { level: number }> {
+/**
+ * The track at every level of TRACK_LEVELS, one feature per level with its `level` index, cut
+ * at the Mercator limit; the parts beyond it (at one level of detail) go to `polar`.
+ */
+export function trackLevels(a: TrackArrays, polar?: PolarParts): FeatureCollection<MultiLineString, { level: number }> {
   const n = a.lon.length;
   const xs = new Float64Array(n);
   const ys = new Float64Array(n);
@@ -138,7 +197,9 @@ export function trackLevels(a: TrackArrays): FeatureCollection<MultiLineString, 
     const lines = pieces
       .map((p) => pieceCoords(a, p, simplifyIndexes(xs, ys, p[0], p[1], tol)))
       .filter((c) => c.length >= 2);
-    return { type: 'Feature', properties: { level }, geometry: { type: 'MultiLineString', coordinates: lines } };
+    const clipped = clipAll(lines);
+    if (polar && level === POLAR_LEVEL) polar.track.push(...clipped.beyond);
+    return { type: 'Feature', properties: { level }, geometry: { type: 'MultiLineString', coordinates: clipped.inside } };
   });
   return { type: 'FeatureCollection', features };
 }
@@ -166,7 +227,7 @@ export function mizStretchIndexes(t: Float64Array, obsT: Float64Array, obsMiz: U
   return runs.filter(([s, e]) => e > s);
 }
 
-export function mizFeatures(a: TrackArrays, obsT: Float64Array, obsMiz: Uint8Array, maxGapMs: number, tolerance = 0): FeatureCollection<MultiLineString> {
+export function mizFeatures(a: TrackArrays, obsT: Float64Array, obsMiz: Uint8Array, maxGapMs: number, tolerance = 0, polar?: PolarParts): FeatureCollection<MultiLineString> {
   const xs = new Float64Array(a.lon.length);
   const ys = new Float64Array(a.lon.length);
   for (let i = 0; i < a.lon.length; i++) {
@@ -181,7 +242,9 @@ export function mizFeatures(a: TrackArrays, obsT: Float64Array, obsMiz: Uint8Arr
         return pieceCoords(sub, p, kept);
       })
       .filter((c) => c.length >= 2);
-    return { type: 'Feature', properties: {}, geometry: { type: 'MultiLineString', coordinates: lines } };
+    const clipped = clipAll(lines);
+    polar?.miz.push(...clipped.beyond);
+    return { type: 'Feature', properties: {}, geometry: { type: 'MultiLineString', coordinates: clipped.inside } };
   });
   return { type: 'FeatureCollection', features };
 }

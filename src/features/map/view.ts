@@ -57,6 +57,9 @@ export function sample<T>(points: readonly T[], max: number): T[] {
   return out;
 }
 
+/** The Web Mercator latitude limit, which MapLibre also keeps the globe's centre within. */
+export const MAX_CENTRE_LAT = 85.051129;
+
 export interface Camera {
   center: LonLat;
   zoom: number;
@@ -69,13 +72,16 @@ export interface Camera {
  * pixels), and MapLibre's R = 512 * 2^zoom / (2 pi cos(lat)).
  */
 export function globeCamera(points: readonly LonLat[], viewport: { width: number; height: number }, fill = 0.8): Camera {
-  const center = sphericalCentre(points);
+  const c = sphericalCentre(points);
+  // MapLibre keeps the map centre within the Mercator latitude limit, also on the globe; the
+  // points are measured from the centre the map will really have.
+  const lat = Math.max(-MAX_CENTRE_LAT, Math.min(MAX_CENTRE_LAT, c[1]));
+  const center: LonLat = [c[0], lat];
   const r = Math.max(0.05, ...points.map((p) => angleBetween(center, p)));
   const halfSide = (Math.min(viewport.width, viewport.height) / 2) * fill;
   const radiusPx = halfSide / Math.sin(Math.min(90, r) * RAD);
-  const lat = Math.max(-89.9, Math.min(89.9, center[1]));
   const zoom = Math.log2((radiusPx * 2 * Math.PI * Math.cos(lat * RAD)) / 512);
-  return { center: [center[0], lat], zoom: Math.max(-2, Math.min(18, zoom)) };
+  return { center, zoom: Math.max(-2, Math.min(18, zoom)) };
 }
 
 /**

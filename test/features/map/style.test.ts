@@ -3,8 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { validateStyleMin } from '@maplibre/maplibre-gl-style-spec';
 import type { FeatureCollection } from 'geojson';
-import { buildStyle, eggFilter, EGG_MIN_ZOOM, FINE_LAND_ZOOM, LAYER, observationFilter, PALETTES, SRC } from '../../../src/features/map/style';
-import { graticuleLabels, graticuleLines, graticuleStep, formatLat, formatLon, GRATICULE_LEVELS, MAX_LABELS } from '../../../src/features/map/graticule';
+import { buildStyle, eggFilter, observationLayerFilter, EGG_MIN_ZOOM, FINE_LAND_ZOOM, LAYER, observationFilter, PALETTES, SRC } from '../../../src/features/map/style';
+import { graticuleFilter, graticuleLabels, graticuleLines, graticuleStep, graticuleSteps, formatLat, formatLon, GRATICULE_LEVELS, MAX_LABELS, scaleZoom } from '../../../src/features/map/graticule';
 
 const empty: FeatureCollection = { type: 'FeatureCollection', features: [] };
 const style = buildStyle({ theme: 'day', projection: 'globe', land110: empty, coast110: empty, graticule: graticuleLines() });
@@ -55,13 +55,31 @@ describe('observation filters', () => {
     expect(observationFilter({ fromMs: 5, toMs: 9, observerIds: ['a'] })).toEqual([
       'all', ['>=', ['get', 't'], 5], ['<=', ['get', 't'], 9], ['in', ['get', 'observerId'], ['literal', ['a']]],
     ]);
-    expect(eggFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(['!=', ['get', 'egg'], '']);
+    // Observations beyond the Mercator limit are left to the polar overlay.
+    const notPolar = ['!=', ['get', 'polar'], true];
+    expect(eggFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(['all', ['!=', ['get', 'egg'], ''], notPolar]);
+    expect(observationLayerFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(notPolar);
+    expect(observationLayerFilter({ fromMs: 1, toMs: null, observerIds: [] })).toEqual(['all', notPolar, ['>=', ['get', 't'], 1]]);
   });
 });
 
 describe('graticule', () => {
   it('spaces the lines by zoom', () => {
     expect([0, 1.9, 2, 4, 5.5, 6.5, 12].map(graticuleStep)).toEqual([30, 30, 10, 5, 2, 1, 1]);
+  });
+
+  it('spaces them by the ground scale: closer parallels and wider meridians towards the pole', () => {
+    // Mercator and the globe both scale the centre by 1/cos(lat): at 60 degrees, twice.
+    expect(scaleZoom(3, 60)).toBeCloseTo(4, 9);
+    expect(scaleZoom(3, -60)).toBeCloseTo(4, 9);
+    expect(graticuleSteps(1, 0)).toEqual({ lat: 30, lon: 30 });
+    // At 85 N, zoom 1 shows what zoom 4.5 shows at the equator; a degree of longitude there is
+    // cos(85) = 0.087 of a degree of latitude, so meridians go 30 degrees apart.
+    expect(graticuleSteps(1, 85)).toEqual({ lat: 5, lon: 30 });
+    expect(graticuleSteps(4, 70)).toEqual({ lat: 2, lon: 10 });
+    expect(JSON.stringify(graticuleFilter({ lat: 5, lon: 30 }))).toBe(
+      JSON.stringify(['any', ['all', ['==', ['get', 'kind'], 'lat'], ['<=', ['get', 'level'], 2]], ['all', ['==', ['get', 'kind'], 'lon'], ['<=', ['get', 'level'], 0]]]),
+    );
   });
 
   it('tags each line with the coarsest spacing it belongs to', () => {
@@ -81,7 +99,7 @@ describe('graticule', () => {
   });
 
   it('makes labels for the lines in view only, and never too many', () => {
-    const fc = graticuleLabels({ west: 0, south: 70, east: 30, north: 85 }, 5);
+    const fc = graticuleLabels({ west: 0, south: 70, east: 30, north: 85 }, { lat: 5, lon: 5 });
     const texts = new Set(fc.features.map((f) => f.properties.text));
     expect(texts).toEqual(new Set(['70°N', '75°N', '80°N', '85°N', '0°', '5°E', '10°E', '15°E', '20°E', '25°E', '30°E']));
     for (const f of fc.features) {
@@ -90,6 +108,6 @@ describe('graticule', () => {
       expect(lon).toBeLessThanOrEqual(35);
       expect(lat).toBeGreaterThanOrEqual(70);
     }
-    expect(graticuleLabels({ west: -180, south: -89, east: 180, north: 89 }, 1).features.length).toBeLessThanOrEqual(MAX_LABELS);
+    expect(graticuleLabels({ west: -180, south: -89, east: 180, north: 89 }, { lat: 1, lon: 1 }).features.length).toBeLessThanOrEqual(MAX_LABELS);
   });
 });
