@@ -8,6 +8,7 @@ import { LIMITS } from './limits';
 import { locatePointer } from './locate';
 import { MIGRATIONS, OLDEST_VERSION, VALIDATORS, migrateToCurrent } from './migrate';
 import { lineColumn, scanText } from './scan';
+import { findSyntaxError } from './syntax';
 import { MAX_LISTED_PROBLEMS } from './limits';
 import { pointerToPath, report, type Problem, type ProblemReport } from './problems';
 import { CURRENT_VERSION, FORMAT_NAME, type LogBundle } from './types';
@@ -19,7 +20,7 @@ export interface ReadOptions {
   rules?: RuleCheck;
   onProgress?: (stage: ReadStage, fraction: number) => void;
   /** For tests: smaller limits. */
-  limits?: Partial<typeof LIMITS>;
+  limits?: Partial<Record<keyof typeof LIMITS, number>>;
 }
 
 export type ReadStage = 'scan' | 'parse' | 'schema' | 'check' | 'rules';
@@ -139,12 +140,9 @@ function pathToPointer(path: string): string {
 }
 
 function parseError(text: string, err: unknown): Problem {
-  const msg = err instanceof Error ? err.message : String(err);
-  const pos = /position (\d+)/.exec(msg);
-  const offset = pos ? Number(pos[1]) : text.length;
-  const truncated = !pos || /end of (JSON )?input/i.test(msg);
-  const reason = truncated ? 'the file ends unexpectedly: it is truncated or not complete JSON' : `not valid JSON (${msg.replace(/^.*?: /, '').replace(/ in JSON at position.*$/, '')})`;
-  return { path: '$', ...lineColumn(text, offset), message: reason };
+  const found = findSyntaxError(text);
+  if (found) return { path: '$', ...lineColumn(text, found.offset), message: `not valid JSON: ${found.reason}` };
+  return { path: '$', message: `not valid JSON (${err instanceof Error ? err.message : String(err)})` };
 }
 
 /** Reads log text of any supported version. `byteLength` is the file's size, when known. */
