@@ -7,6 +7,7 @@ import { ReviewScreen } from '../features/review/ReviewScreen';
 import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
+import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -79,6 +80,7 @@ export function App() {
         </label>
       </header>
       <NavigationNotice />
+      <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />
       </main>

@@ -1,0 +1,36 @@
+// The local store's public surface. Features import from here, never from dexie.
+export * from './errors';
+export type * from './rows';
+export { SCHEMA_VERSIONS, LATEST_SCHEMA_VERSION, type SchemaVersion } from './schema';
+export { FloeDatabase, DEFAULT_DB_NAME, type FloeDatabaseOptions } from './database';
+export {
+  openFloeDb,
+  getDb,
+  writableDb,
+  writeBlockReason,
+  onDatabaseEvent,
+  selectDatabase,
+  closeFloeDb,
+  type DatabaseEvent,
+} from './connection';
+export { getSetting, setSetting, deviceId } from './settings';
+export { saveDraft, loadDraft, clearDraft, listDrafts } from './drafts';
+export { createCruise, updateCruise, getCruise, listCruises, setActiveCruise, getActiveCruise, type CruisePatch } from './cruises';
+export {
+  saveObservation,
+  softDeleteObservation,
+  restoreObservation,
+  getObservation,
+  listObservations,
+  countObservations,
+  listObservationsByObserver,
+  observationHistory,
+  type SaveObservationOptions,
+  type SaveResult,
+  type DeleteOptions,
+  type ListObservationsQuery,
+} from './observations';
+export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore, DEFAULT_TRACK_CHUNK, type AddTrackPointsOptions, type AddTrackPointsResult } from './trackPoints';
+export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
+export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
+export { isIsoUtc } from './validate';

@@ -1,0 +1,10 @@
+// The one way a stored observation is replaced: the old version goes to the append-only
+// revisions table first. Callers run this inside their own read-write transaction.
+import type { IsoUtc, Observation } from '../domain/model';
+import type { FloeDatabase } from './database';
+
+export async function replaceObservation(db: FloeDatabase, old: Observation, next: Observation, at: IsoUtc): Promise<void> {
+  // add, not put: an existing revision row is never replaced.
+  await db.revisions.add({ observationId: old.id, revision: old.revision, supersededAt: at, observation: old });
+  await db.observations.put(next);
+}

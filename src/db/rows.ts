@@ -1,0 +1,77 @@
+// The shapes stored in each table, beside the model types they hold. Model records (Cruise,
+// Observation, TrackPoint) are stored exactly as src/domain/model.ts defines them.
+import type { Cruise, IsoUtc, Observation } from '../domain/model';
+
+/** An earlier version of an observation, kept when an edit, delete or restore replaces it. */
+export interface ObservationRevision {
+  observationId: string;
+  /** The revision number of the stored snapshot (equal to `observation.revision`). */
+  revision: number;
+  /** When the snapshot stopped being the current version. */
+  supersededAt: IsoUtc;
+  observation: Observation;
+}
+
+export interface PhotoRecord {
+  id: string;
+  observationId: string;
+  cruiseId: string;
+  /** File name as the observer picked it, for the export archive. */
+  fileName: string;
+  mimeType: string;
+  sizeBytes: number;
+  addedAt: IsoUtc;
+  /** When the picture was taken, if known (e.g. from the file's date). */
+  takenAt?: IsoUtc;
+  blob: Blob;
+}
+
+/** Photo record without its bytes, for lists. */
+export type PhotoMeta = Omit<PhotoRecord, 'blob'>;
+
+/** The form in progress, saved as the observer types so nothing is lost in a crash. */
+export interface DraftRecord<T = unknown> {
+  cruiseId: string;
+  /** Which form this draft belongs to, e.g. `observation` or `observation:<id>` for an edit. */
+  form: string;
+  data: T;
+  savedAt: IsoUtc;
+}
+
+/**
+ * Settings with typed values. Add a key here (optional values only) when a screen needs to
+ * keep a preference; the settings table holds `{ key, value }` rows.
+ */
+export interface SettingValues {
+  activeCruiseId: string | null;
+  /** The observer who is on watch on this laptop. */
+  currentObserverId: string | null;
+  /** Minutes before the hour at which the next-observation reminder shows. */
+  reminderLeadMinutes: number;
+}
+export type SettingKey = keyof SettingValues;
+
+export interface SettingRow<K extends SettingKey = SettingKey> {
+  key: K;
+  value: SettingValues[K];
+}
+
+/** Facts about this browser profile's store, not user settings. */
+export interface MetaValues {
+  /** Random id of this browser profile, created once, stamped on every saved revision. */
+  deviceId: string;
+  /** When persistent storage was requested and what the browser answered. */
+  persistenceRequest: { askedAt: IsoUtc; granted: boolean };
+}
+export type MetaKey = keyof MetaValues;
+export interface MetaRow<K extends MetaKey = MetaKey> {
+  key: K;
+  value: MetaValues[K];
+}
+
+/** What a screen hands to saveObservation: the model minus the fields the store stamps. */
+export type ObservationInput = Omit<Observation, 'revision' | 'savedAt' | 'savedBy' | 'deviceId' | 'deleted'> &
+  Partial<Pick<Observation, 'revision' | 'savedAt' | 'savedBy' | 'deviceId' | 'deleted'>>;
+
+/** What createCruise takes: the cruise minus the fields the store sets. */
+export type CruiseInput = Omit<Cruise, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };

@@ -1,0 +1,38 @@
+// Every schema version of the database, oldest first. A version that has shipped is never
+// edited: a change is a new entry with a higher number, its full `stores` and, when existing
+// rows must change shape, an `upgrade` function. See docs/dev/db.md.
+import type { Transaction } from 'dexie';
+
+export interface SchemaVersion {
+  version: number;
+  /** Dexie store specs: the primary key first, then the indexes. `null` deletes a table. */
+  stores: Record<string, string | null>;
+  /** Rewrites existing rows for this version; runs inside the upgrade transaction. */
+  upgrade?: (tx: Transaction) => Promise<void> | void;
+  /** Tables whose existing rows `upgrade` rewrites; the fixture test compares the others exactly. */
+  rewrites?: readonly string[];
+  /** One line for the contributor guide: what this version changed. */
+  note: string;
+}
+
+export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
+  {
+    version: 1,
+    note: 'first shipped version',
+    stores: {
+      cruises: 'id, name',
+      // Observations are looked up by id, listed by cruise and time, and filtered by observer.
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      // Append-only: one row per superseded version of an observation.
+      revisions: '[observationId+revision], observationId',
+      // One fix per cruise and instant; the key doubles as the time-range index.
+      trackPoints: '[cruiseId+time]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+    },
+  },
+];
+
+export const LATEST_SCHEMA_VERSION = SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.version ?? 0;
