@@ -132,6 +132,7 @@ export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<st
     if (photoIds.has(fp.id)) out.push({ path: `$.photos[${i}].id`, message: `photo id "${fp.id}" appears twice` });
     photoIds.add(fp.id);
     if (!seen.has(fp.observationId)) out.push({ path: `$.photos[${i}].observationId`, message: `no observation "${fp.observationId}" in this file` });
+    if (fp.addedAt !== undefined && !isRealUtcTime(fp.addedAt)) out.push({ path: `$.photos[${i}].addedAt`, message: `"${fp.addedAt}" is not a date on the calendar` });
     if (fp.takenAt !== undefined && !isRealUtcTime(fp.takenAt)) out.push({ path: `$.photos[${i}].takenAt`, message: `"${fp.takenAt}" is not a date on the calendar` });
     const { archivePath, ...meta } = fp;
     archivePaths?.set(fp.id, archivePath);

@@ -72,6 +72,8 @@ export interface PhotoMeta {
   fileName: string;
   mediaType: string;
   byteLength: number;
+  /** When the photo was attached to the observation. */
+  addedAt?: IsoUtc;
   takenAt?: IsoUtc;
 }
 
