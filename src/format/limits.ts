@@ -11,7 +11,7 @@ export const LIMITS = {
   /** Deepest nesting of arrays and objects. The format itself needs 7. */
   maxDepth: 12,
   /** Longest string, in UTF-16 code units (notes are the long ones). */
-  maxStringLength: 20_000,
+  maxStringLength: 100_000,
   /** Most elements in any one array (the track's point list is the long one). */
   maxArrayLength: 5_000_000,
   /** Observations in one file. */

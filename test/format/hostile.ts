@@ -78,7 +78,7 @@ export function hostileCases(): HostileCase[] {
       add(`overflowing literal at ${where}`, JSON.stringify(setAt(file, n.path, 424242)).replace('424242', '1e400'));
     }
     if (typeof n.value === 'string' && n.path[n.path.length - 1] !== 'name' && n.path[0] !== 'units') {
-      add(`overlong string at ${where}`, JSON.stringify(setAt(file, n.path, 'x'.repeat(20_001))));
+      add(`overlong string at ${where}`, JSON.stringify(setAt(file, n.path, 'x'.repeat(100_001))));
     }
     if (n.value !== null && typeof n.value === 'object' && !Array.isArray(n.value)) {
       add(`unknown field at ${where}`, JSON.stringify(setAt(file, [...n.path, 'extraField'], 1)));
