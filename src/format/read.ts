@@ -1,7 +1,8 @@
 // Reading a log file: limits, a structural scan, JSON.parse, the schema of the file's version,
 // migration to the current version, the checks a schema cannot make, then the domain rules.
 // Any problem rejects the whole file; nothing is returned half-read.
-import type { Finding, Observation } from '../domain/model';
+import type { Cruise, Finding, Observation } from '../domain/model';
+import { validateObservation } from '../domain/rules';
 import { decodeLog } from './decode';
 import type { SchemaError } from './generated/validate-log-1.js';
 import { LIMITS } from './limits';
@@ -13,11 +14,14 @@ import { MAX_LISTED_PROBLEMS } from './limits';
 import { pointerToPath, report, type Problem, type ProblemReport } from './problems';
 import { CURRENT_VERSION, FORMAT_NAME, type LogBundle } from './types';
 
-export type RuleCheck = (o: Observation) => Finding[];
+export type RuleCheck = (o: Observation, cruise: Cruise) => Finding[];
 
 export interface ReadOptions {
-  /** Domain rules run on every saved version; findings of severity `error` reject the file. */
-  rules?: RuleCheck;
+  /**
+   * Domain rules run on every saved version; findings of severity `error` reject the file.
+   * Defaults to the domain's validateObservation; null skips them (format-only checks).
+   */
+  rules?: RuleCheck | null;
   onProgress?: (stage: ReadStage, fraction: number) => void;
   /** For tests: smaller limits. */
   limits?: Partial<Record<keyof typeof LIMITS, number>>;
@@ -216,13 +220,14 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
   }
 
   const warnings: ReadWarning[] = [];
-  if (opts.rules) {
+  const rules = opts.rules === undefined ? validateObservation : opts.rules;
+  if (rules) {
     opts.onProgress?.('rules', 0);
     const index = new Map<string, number>();
     bundle.observations.forEach((o, i) => index.set(o.id, i));
     const ruleProblems: Problem[] = [];
     const check = (o: Observation, where: string) => {
-      for (const f of opts.rules?.(o) ?? []) {
+      for (const f of rules(o, bundle.cruise)) {
         const path = `${where}${f.path ? `.${f.path.replace(/\.(\d+)(?=\.|$)/g, '[$1]')}` : ''}`;
         if (f.severity === 'error') ruleProblems.push({ path, message: `${f.message} (rule ${f.code})` });
         else warnings.push({ path, message: `${f.message} (rule ${f.code})` });

@@ -17,8 +17,8 @@ import { dumpAll, freshDatabasePerTest, quotaFailure } from './helpers';
 
 freshDatabasePerTest();
 
-async function importText(text: string, source = 'test.json') {
-  const r = readLogText(text);
+async function importText(text: string, source = 'test.json', rules: null | undefined = undefined) {
+  const r = readLogText(text, { rules });
   if (!r.ok) return { ok: false as const, problems: r.problems };
   const plan = planMerge(await loadMergeTarget(r.bundle.cruise.id), r.bundle);
   const applied = await applyMergePlan(plan, { source });
@@ -52,14 +52,14 @@ describe('exchange with the store', () => {
     await fc.assert(
       fc.asyncProperty(arbBundle, async (b) => {
         await wipe();
-        const first = await importText(textOf(b));
+        const first = await importText(textOf(b), 'random.json', null);
         expect(first.ok).toBe(true);
         const exported = await readCruiseExport(b.cruise.id);
         // Photos without bytes (a plain JSON log) are not stored; compare the rest.
         expect(comparable({ ...exported.bundle, photos: [] })).toEqual(comparable({ ...b, photos: [] }));
         const text = textOf(exported.bundle);
         await wipe();
-        expect((await importText(text)).ok).toBe(true);
+        expect((await importText(text, 'export.json', null)).ok).toBe(true);
         const again = await readCruiseExport(b.cruise.id);
         expect(comparable(again.bundle)).toEqual(comparable(exported.bundle));
       }),

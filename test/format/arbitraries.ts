@@ -218,7 +218,16 @@ export function sampleBundle(): LogBundle {
   };
   delete second.traceStage;
   delete second.weather;
-  const history: Observation[] = [{ ...base, revision: 1, totalConcentration: 8, notes: 'first try', savedAt: '2026-03-02T10:01:00Z' }];
+  const history: Observation[] = [
+    {
+      ...base,
+      revision: 1,
+      totalConcentration: 8,
+      categories: [{ ...(base.categories[0] as IceCategory), partialConcentration: 5 }, base.categories[1] as IceCategory],
+      notes: 'first try',
+      savedAt: '2026-03-02T10:01:00Z',
+    },
+  ];
   const track: TrackPoint[] = [
     { cruiseId: cruise.id, time: '2026-03-02T09:00:00Z', lat: 78.2, lon: 179.5, source: 'gps-serial', sogKn: 8, cogDeg: 90 },
     { cruiseId: cruise.id, time: '2026-03-02T09:30:00Z', lat: 78.3, lon: -179.5, source: 'gps-serial', sogKn: 8.5, cogDeg: 90 },
