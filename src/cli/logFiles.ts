@@ -1,7 +1,8 @@
 // Reading and writing log files for the commands: the same readers as the app (src/format), a
 // size check before a file is read, and problems printed one per line with the file name.
 import { readFileSync, statSync, writeFileSync } from 'node:fs';
-import { looksLikeZip, readArchive } from '../format/archive.ts';
+import { looksLikeZip } from '../format/archive.ts';
+import { readArchive } from '../format/archiveRead.ts';
 import { LIMITS } from '../format/limits.ts';
 import { formatReport, type ProblemReport } from '../format/problems.ts';
 import { readLogText, type ReadWarning } from '../format/read.ts';

@@ -54,3 +54,21 @@ export async function readCruiseExport(cruiseId: string, opts: { photoBytes?: bo
   for (const [id, blob] of blobs) photos.set(id, new Uint8Array(await blob.arrayBuffer()));
   return { bundle, photos };
 }
+
+/**
+ * A value that changes whenever anything of the cruise that a backup holds changes: an edit
+ * adds a revision row, a save or an import adds observations, conflicts or track points.
+ * Cheap (counts only), for live queries that trigger the automatic backup.
+ */
+export async function cruiseChangeStamp(cruiseId: string): Promise<string> {
+  const db = getDb();
+  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+    const cruise = await db.cruises.get(cruiseId);
+    const obs = await db.observations.where('cruiseId').equals(cruiseId).count();
+    const revs = await db.revisions.count();
+    const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).count();
+    const track = await db.trackPoints.where('[cruiseId+time]').between([cruiseId, Dexie.minKey], [cruiseId, Dexie.maxKey], true, true).count();
+    const photos = await db.photos.where('cruiseId').equals(cruiseId).count();
+    return [cruise?.updatedAt ?? '', obs, revs, conflicts, track, photos].join('|');
+  });
+}

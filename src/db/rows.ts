@@ -66,6 +66,11 @@ export interface SettingValues {
   currentObserverId: string | null;
   /** Minutes before the hour at which the next-observation reminder shows. */
   reminderLeadMinutes: number;
+  /** The folder automatic backups go to (File System Access API), as the browser gave it. */
+  backupFolder: FileSystemDirectoryHandle | null;
+  /** When the last automatic backup was written, and the last export downloaded. */
+  lastBackupAt: IsoUtc | null;
+  lastExportAt: IsoUtc | null;
 }
 export type SettingKey = keyof SettingValues;
 

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { readArchive, writeArchive } from '../../src/format/archive';
+import { writeArchive } from '../../src/format/archive';
+import { readArchive } from '../../src/format/archiveRead';
 import { zipSync } from 'fflate';
 import { encodeLog, writeLogJson } from '../../src/format/encode';
 import { LIMITS } from '../../src/format/limits';
