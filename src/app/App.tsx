@@ -7,6 +7,7 @@ import { ReviewScreen } from '../features/review/ReviewScreen';
 import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
+import { UpdateBanner } from './UpdateBanner';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
@@ -80,6 +81,7 @@ export function App() {
         </label>
       </header>
       <NavigationNotice />
+      <UpdateBanner />
       <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />

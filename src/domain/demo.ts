@@ -3,13 +3,12 @@
 // Atlantic water north of Svalbard through the marginal ice zone into the pack of the Nansen
 // Basin (to about 83.6 N), holds an ice station, and returns, over six days of March 2026.
 // Everything here (vessel, cruise, observers, numbers) is invented and is for the demo only.
-import geographiclib from 'geographiclib-geodesic';
+import { destination, geodesicInverse, METRES_PER_NM, pointAlongGeodesic } from './geodesy';
 import type {
   Cruise, IceCategory, Icebergs, IsoUtc, Observation, Observer, OpenWater, TrackPoint, Weather,
 } from './model';
+import { freezingPointC } from './seawater';
 
-const geod = geographiclib.Geodesic.WGS84;
-const M_PER_NM = 1852;
 const MINUTE_MS = 60_000;
 const HOUR_MS = 3_600_000;
 
@@ -122,16 +121,13 @@ function positionAt(minute: number): { lat: number; lon: number } {
   for (const leg of LEGS) {
     const t1 = t0 + leg.hours * 60;
     if (minute <= t1) {
-      const line = geod.InverseLine(from[0], from[1], leg.to[0], leg.to[1]);
+      const to = { lat: leg.to[0], lon: leg.to[1] };
       const f = (minute - t0) / (t1 - t0);
-      const p = line.Position(line.s13 * f);
-      const lat = p.lat2 ?? from[0];
-      const lon = p.lon2 ?? from[1];
-      if (leg.weaveNm === 0) return { lat, lon };
+      const here = pointAlongGeodesic({ lat: from[0], lon: from[1] }, to, f);
+      if (leg.weaveNm === 0 || f >= 1) return here;
       // The weave fades out at both ends so legs still join up.
-      const side = leg.weaveNm * M_PER_NM * Math.sin(Math.PI * f) * Math.sin((2 * Math.PI * minute) / 47);
-      const q = geod.Direct(lat, lon, (p.azi2 ?? 0) + 90, side);
-      return { lat: q.lat2 ?? lat, lon: q.lon2 ?? lon };
+      const side = leg.weaveNm * METRES_PER_NM * Math.sin(Math.PI * f) * Math.sin((2 * Math.PI * minute) / 47);
+      return destination(here, geodesicInverse(here, to).initialBearingDeg + 90, side);
     }
     from = leg.to;
     t0 = t1;
@@ -162,12 +158,6 @@ export function demoIceDepthNm(lat: number, lon: number): number {
 
 /** Width of the marginal ice zone in the scenario (nm); tens to hundreds of km is common practice. */
 const MIZ_WIDTH_NM = 40;
-
-/** Freezing point of sea water at the surface (UNESCO 1983, EOS-80 formula with p = 0). */
-function surfaceFreezingPointC(salinityPsu: number): number {
-  const s = salinityPsu;
-  return -0.0575 * s + 1.710523e-3 * s ** 1.5 - 2.154996e-4 * s * s;
-}
 
 const round1 = (x: number): number => Math.round(x * 10) / 10;
 const round2 = (x: number): number => Math.round(x * 100) / 100;
@@ -280,7 +270,7 @@ function weatherAt(depthNm: number, hour: number, n: NoiseSet): Weather {
   const synoptic = 4 * Math.sin((2 * Math.PI * hour) / 70 + 1.3);
   const airTempC = round1(clamp(base + synoptic + 1.5 * n.air(), -30, -1));
   const salinityPsu = depthNm < -8 ? 34.9 : round1(34.3 - 0.3 * clamp(depthNm / 60, 0, 1));
-  const tf = surfaceFreezingPointC(salinityPsu);
+  const tf = freezingPointC(salinityPsu);
   // Atlantic water is above freezing away from the edge; in ice the surface is within tenths of a
   // degree of the freezing point and never below it.
   const excess = depthNm < 0 ? 0.15 + clamp(-depthNm / 60, 0, 1) * 2.8 : 0.04 + 0.04 * (1 + n.air());
@@ -357,10 +347,10 @@ export function makeDemoCruise(seed = 1): DemoCruise {
     const here = positionAt(m);
     const ahead = positionAt(Math.min(m + 1, totalMinutes));
     const behind = positionAt(Math.max(m - 1, 0));
-    const inv = geod.Inverse(behind.lat, behind.lon, ahead.lat, ahead.lon);
+    const inv = geodesicInverse(behind, ahead);
     const minutes = Math.min(m + 1, totalMinutes) - Math.max(m - 1, 0);
-    const sogKn = round1(((inv.s12 ?? 0) / M_PER_NM) * (60 / minutes));
-    const cogDeg = round1(((inv.azi1 ?? 0) + 360) % 360);
+    const sogKn = round1((inv.distanceM / METRES_PER_NM) * (60 / minutes));
+    const cogDeg = round1(inv.initialBearingDeg % 360);
     const leg = legAt(m);
     const headingDeg = round1((cogDeg + leg.headingOffsetDeg + 360) % 360);
     track.push({

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import geographiclib from 'geographiclib-geodesic';
 import { DEMO_HOURS, demoIceDepthNm, makeDemoCruise, makePrng } from '../../src/domain/demo';
 import { STAGE_KEYS, type IceCategory, type StageKey } from '../../src/domain/model';
+import { checkSequence, validateObservation } from '../../src/domain/rules';
 
 const geod = geographiclib.Geodesic.WGS84;
 const demo = makeDemoCruise();
@@ -164,5 +165,29 @@ describe('demo cruise generator', () => {
     expect(mean).toBeLessThan(0.52);
     expect(Math.min(...xs)).toBeGreaterThanOrEqual(0);
     expect(Math.max(...xs)).toBeLessThan(1);
+  });
+
+  describe.each([1, 2, 3, 7, 2026])('against the domain rules (seed %i)', (seed) => {
+    const d = seed === 1 ? demo : makeDemoCruise(seed);
+    const typo = d.doubtful.find((x) => x.kind === 'position-typo')!;
+    const thick = d.doubtful.find((x) => x.kind === 'stage-thickness-mismatch')!;
+
+    it('passes every observation rule except the planted thickness, and nothing blocks saving', () => {
+      const findings = d.observations.flatMap((o) => validateObservation(o, d.cruise).map((f) => ({ id: o.id, code: f.code, path: f.path, severity: f.severity })));
+      expect(findings).toEqual([{ id: thick.observationId, code: 'stage-thickness-mismatch', path: thick.path, severity: 'warning' }]);
+    });
+
+    it('has exactly the documented sequence findings: the two gaps and the position typo', () => {
+      const idAt = new Map(d.observations.map((o) => [o.time, o.id]));
+      const afterTypo = d.observations[d.observations.findIndex((o) => o.id === typo.observationId) + 1]!;
+      const findings = checkSequence(d.observations, d.cruise).map((f) => ({ id: f.observationId, code: f.code }));
+      expect(findings).toEqual([
+        { id: idAt.get(d.gaps[0]!.after), code: 'observation-gap' },
+        // The typo is reached at an impossible speed, and left at one.
+        { id: typo.observationId, code: 'implied-speed' },
+        { id: afterTypo.id, code: 'implied-speed' },
+        { id: idAt.get(d.gaps[1]!.after), code: 'observation-gap' },
+      ]);
+    });
   });
 });

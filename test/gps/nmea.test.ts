@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { describeNmeaError, nmeaChecksum, parseNmea, withChecksum, type NmeaSentence } from '../../src/gps/nmea';
-import { formatCoordinate, formatGga, formatHdt, formatRmc, formatVtg } from '../../src/gps/nmeaWrite';
+import { formatNmeaCoordinate, formatGga, formatHdt, formatRmc, formatVtg } from '../../src/gps/nmeaWrite';
 
 function ok(line: string, opts = {}): NmeaSentence {
   const r = parseNmea(line, opts);
@@ -212,9 +212,9 @@ describe('writer and parser agree (property)', () => {
   });
 
   it('writes coordinates the way NMEA 0183 spells them', () => {
-    expect(formatCoordinate(82.5, 'lat')).toBe('8230.00000,N');
-    expect(formatCoordinate(-0.999999999, 'lon')).toBe('00100.00000,W');
-    expect(formatCoordinate(15.25, 'lon')).toBe('01515.00000,E');
+    expect(formatNmeaCoordinate(82.5, 'lat')).toBe('8230.00000,N');
+    expect(formatNmeaCoordinate(-0.999999999, 'lon')).toBe('00100.00000,W');
+    expect(formatNmeaCoordinate(15.25, 'lon')).toBe('01515.00000,E');
   });
 
   it('rejects any single-character change in the body of a valid sentence', () => {
