@@ -105,7 +105,8 @@ describe('Exchange screen in Chromium', () => {
     const truncated = join(dir, 'truncated.json');
     writeFileSync(truncated, demoText.slice(0, 20_000));
     await page.getByTestId('import-input').setInputFiles(truncated);
-    await page.getByText(/truncated/).first().waitFor({ timeout: 30_000 });
+    await page.getByTestId('import-rejected').getByText(/truncated\.json: .*|it is truncated/).first().waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId('import-rejected').innerText()).toMatch(/line \d+, column \d+: \$: .*truncated/);
   });
 
   it('takes a file by drag and drop, and shows a newer revision in the preview', async () => {
