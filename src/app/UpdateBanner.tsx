@@ -70,10 +70,12 @@ export function UpdateBannerView({ state, actions }: { state: PwaState; actions:
       break;
   }
   return (
-    <div className="update-banner" role="status" data-testid="update-banner" data-phase={phase}>
+    // A labelled region with a polite live announcement rather than role="status", so screens
+    // that have their own status line keep the only one.
+    <section className="update-banner" aria-label="App version" aria-live="polite" data-testid="update-banner" data-phase={phase}>
       {body}
       {error ? <span className="update-banner-error">Not updated: {error}.</span> : null}
-    </div>
+    </section>
   );
 }
 

@@ -223,7 +223,7 @@ export const POSITION_SOURCE_LABELS: Readonly<Record<PositionSource, string>> = 
   geolocation: 'Device location',
   manual: 'Typed in',
   'track-interpolated': 'Interpolated from the track',
-  'track-file': 'From a track file',
+  'track-file': 'Imported track file',
 };
 
 /** Melt-pond states (our own labels). */

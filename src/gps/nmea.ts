@@ -176,13 +176,15 @@ function date(fields: readonly string[], i: number): UtcDate | null {
   return { year, month, day };
 }
 
+const LATITUDE = /^(\d{2})(\d\d(?:\.\d+)?)$/;
+const LONGITUDE = /^(\d{3})(\d\d(?:\.\d+)?)$/;
+
 /** `ddmm.mmmm` + hemisphere, or `dddmm.mmmm` for longitude, to signed decimal degrees. */
 function coordinate(fields: readonly string[], i: number, axis: 'latitude' | 'longitude'): number | null {
   const v = fields[i] ?? '';
   const hemi = fields[i + 1] ?? '';
   if (v === '' && hemi === '') return null;
-  const degDigits = axis === 'latitude' ? 2 : 3;
-  const m = new RegExp(`^(\\d{${degDigits}})(\\d\\d(?:\\.\\d+)?)$`).exec(v);
+  const m = (axis === 'latitude' ? LATITUDE : LONGITUDE).exec(v);
   if (!m) throw new FieldError(axis, `${axis} "${v}" is not ${axis === 'latitude' ? 'ddmm.mmmm' : 'dddmm.mmmm'}`);
   const deg = Number(m[1]);
   const min = Number(m[2]);
@@ -223,7 +225,7 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
       unit(f, 9, 'M', 'altitude');
       unit(f, 11, 'M', 'geoid separation');
       return {
-        ...base, type, timeOfDay: time(f, 0),
+        talker: base.talker, checksum: base.checksum, raw: base.raw, type, timeOfDay: time(f, 0),
         lat: coordinate(f, 1, 'latitude'), lon: coordinate(f, 3, 'longitude'),
         fixQuality, satellites: int(f, 6, 'satellites', [0, 99]), hdop: num(f, 7, 'HDOP', [0, 99.99]),
         altitudeM: num(f, 8, 'altitude'), geoidSeparationM: num(f, 10, 'geoid separation'),
@@ -234,7 +236,7 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
       const status = f[1] ?? '';
       if (status !== 'A' && status !== 'V') throw new FieldError('status', `status "${status}" is not A or V`);
       return {
-        ...base, type, timeOfDay: time(f, 0), status,
+        talker: base.talker, checksum: base.checksum, raw: base.raw, type, timeOfDay: time(f, 0), status,
         lat: coordinate(f, 2, 'latitude'), lon: coordinate(f, 4, 'longitude'),
         sogKn: num(f, 6, 'speed over ground', [0, 1000]), cogDeg: num(f, 7, 'course over ground', [0, 360]),
         date: date(f, 8), magneticVariationDeg: eastWest(f, 9, 'magnetic variation'),
@@ -245,7 +247,7 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
       // The old (pre-2.0) form without unit letters has 4 fields; the usual one has 8 or 9.
       if (f.length === 4) {
         return {
-          ...base, type, cogTrueDeg: num(f, 0, 'true course', [0, 360]), cogMagneticDeg: num(f, 1, 'magnetic course', [0, 360]),
+          talker: base.talker, checksum: base.checksum, raw: base.raw, type, cogTrueDeg: num(f, 0, 'true course', [0, 360]), cogMagneticDeg: num(f, 1, 'magnetic course', [0, 360]),
           sogKn: num(f, 2, 'speed in knots', [0, 1000]), sogKmh: num(f, 3, 'speed in km/h', [0, 2000]), mode: null,
         };
       }
@@ -255,7 +257,7 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
       unit(f, 5, 'N', 'speed in knots');
       unit(f, 7, 'K', 'speed in km/h');
       return {
-        ...base, type, cogTrueDeg: num(f, 0, 'true course', [0, 360]), cogMagneticDeg: num(f, 2, 'magnetic course', [0, 360]),
+        talker: base.talker, checksum: base.checksum, raw: base.raw, type, cogTrueDeg: num(f, 0, 'true course', [0, 360]), cogMagneticDeg: num(f, 2, 'magnetic course', [0, 360]),
         sogKn: num(f, 4, 'speed in knots', [0, 1000]), sogKmh: num(f, 6, 'speed in km/h', [0, 2000]),
         mode: f[8] === undefined || f[8] === '' ? null : f[8],
       };
@@ -263,7 +265,7 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
     case 'HDT': {
       need(f, 2);
       unit(f, 1, 'T', 'heading');
-      return { ...base, type, headingTrueDeg: num(f, 0, 'heading', [0, 360]) };
+      return { talker: base.talker, checksum: base.checksum, raw: base.raw, type, headingTrueDeg: num(f, 0, 'heading', [0, 360]) };
     }
     case 'HDG': {
       need(f, 5);
@@ -272,46 +274,58 @@ function parseFields(type: SentenceType, f: readonly string[], base: SentenceBas
       const variation = eastWest(f, 3, 'variation');
       // Sensor + deviation = magnetic heading; + variation = true heading (NMEA 0183 HDG notes).
       const headingTrueDeg = sensor !== null && variation !== null ? norm360(sensor + (deviation ?? 0) + variation) : null;
-      return { ...base, type, sensorHeadingDeg: sensor, deviationDeg: deviation, variationDeg: variation, headingTrueDeg };
+      return { talker: base.talker, checksum: base.checksum, raw: base.raw, type, sensorHeadingDeg: sensor, deviationDeg: deviation, variationDeg: variation, headingTrueDeg };
     }
   }
 }
 
+function failure(kind: NmeaErrorKind, sentence: string, message: string, raw: string, field?: string): ParseResult {
+  const error: NmeaError = { kind, sentence, message, raw };
+  if (field !== undefined) error.field = field;
+  return { ok: false, error };
+}
+
+const ADDRESS = /^[A-Z][A-Z0-9]{4}$/;
+const PROPRIETARY = /^P[A-Z0-9]{3,9}$/;
+const NOT_PRINTABLE = /[^\x20-\x7e]/;
+const HEX2 = /^[0-9A-Fa-f]{2}$/;
+const SUPPORTED = new Set<string>(SUPPORTED_SENTENCES);
+
 /** Parse one NMEA 0183 sentence (leading/trailing whitespace and CR LF are ignored). */
 export function parseNmea(line: string, opts: ParseOptions = {}): ParseResult {
   const raw = line.trim();
-  const fail = (kind: NmeaErrorKind, sentence: string, message: string, field?: string): ParseResult => ({
-    ok: false, error: { kind, sentence, message, raw, ...(field === undefined ? {} : { field }) },
-  });
-  if (raw.length > MAX_SENTENCE_LENGTH) return fail('framing', '?', `line of ${raw.length} characters is too long for an NMEA sentence`);
-  if (!raw.startsWith('$')) return fail('framing', '?', 'does not start with "$"');
+  if (raw.length > MAX_SENTENCE_LENGTH) return failure('framing', '?', `line of ${raw.length} characters is too long for an NMEA sentence`, raw);
+  // `!` starts encapsulated sentences (AIS VDM/VDO) that share a line with GPS on many ships.
+  const startChar = raw.charCodeAt(0);
+  if (startChar !== 36 /* $ */ && startChar !== 33 /* ! */) return failure('framing', '?', 'does not start with "$"', raw);
   const star = raw.lastIndexOf('*');
   const body = star >= 0 ? raw.slice(1, star) : raw.slice(1);
-  const address = body.split(',', 1)[0] ?? '';
-  const name = /^[A-Z][A-Z0-9]{4}$/.test(address) ? address : '?';
-  if (name === '?') return fail('framing', '?', `address field "${address.slice(0, 12)}" is not a talker id and a sentence type`);
+  const comma = body.indexOf(',');
+  const address = comma >= 0 ? body.slice(0, comma) : body;
+  // Proprietary sentences ($P + maker code + anything, e.g. $PGRME, $PUBX) are checked but not used.
+  const proprietary = PROPRIETARY.test(address);
+  if (!proprietary && !ADDRESS.test(address)) return failure('framing', '?', `address field "${address.slice(0, 12)}" is not a talker id and a sentence type`, raw);
+  const name = address;
   // Printable ASCII only (NMEA 0183 reserves the rest); a stray byte means line noise.
-  if (/[^\x20-\x7e]/.test(body)) return fail('framing', name, 'contains characters that are not printable ASCII');
+  if (NOT_PRINTABLE.test(body)) return failure('framing', name, 'contains characters that are not printable ASCII', raw);
   let checksum: 'valid' | 'absent' = 'absent';
   if (star >= 0) {
     const given = raw.slice(star + 1);
-    if (!/^[0-9A-Fa-f]{2}$/.test(given)) return fail('checksum', name, `checksum "${given}" is not two hex digits`, 'checksum');
+    if (!HEX2.test(given)) return failure('checksum', name, `checksum "${given}" is not two hex digits`, raw, 'checksum');
     const expected = nmeaChecksum(body);
-    if (given.toUpperCase() !== expected) return fail('checksum', name, `checksum ${given} does not match ${expected}`, 'checksum');
+    if (given.toUpperCase() !== expected) return failure('checksum', name, `checksum ${given} does not match ${expected}`, raw, 'checksum');
     checksum = 'valid';
   } else if (!opts.allowMissingChecksum) {
-    return fail('checksum', name, 'has no checksum (accept such sentences only if the source never sends one)', 'checksum');
+    return failure('checksum', name, 'has no checksum (accept such sentences only if the source never sends one)', raw, 'checksum');
   }
-  const talker = name.slice(0, 2);
+  if (proprietary) return failure('unsupported', name, `proprietary sentence ${name} is not used here`, raw);
   const formatter = name.slice(2);
-  if (!(SUPPORTED_SENTENCES as readonly string[]).includes(formatter)) {
-    return fail('unsupported', name, `${formatter} sentences are not used here`);
-  }
-  const fields = body.split(',').slice(1);
+  if (startChar === 33 || !SUPPORTED.has(formatter)) return failure('unsupported', name, `${formatter} sentences are not used here`, raw);
+  const fields = comma >= 0 ? body.slice(comma + 1).split(',') : [];
   try {
-    return { ok: true, value: parseFields(formatter as SentenceType, fields, { talker, checksum, raw }) };
+    return { ok: true, value: parseFields(formatter as SentenceType, fields, { talker: name.slice(0, 2), checksum, raw }) };
   } catch (e) {
-    if (e instanceof FieldError) return fail('field', name, `${name}: ${e.message}`, e.field);
+    if (e instanceof FieldError) return failure('field', name, `${name}: ${e.message}`, raw, e.field);
     throw e;
   }
 }

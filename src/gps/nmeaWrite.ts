@@ -1,6 +1,6 @@
 // NMEA 0183 sentence writer: turns a fix into GGA, RMC, VTG and HDT sentences. Used to replay a
-// track through the same path a real receiver takes (the fake serial port of the browser tests,
-// the simulator in settings) and to test the parser by round trip.
+// track through the same path a real receiver takes (the fake serial device of the browser
+// tests) and to test the parser by round trip.
 import { withChecksum } from './nmea';
 
 export interface FixToWrite {
@@ -31,7 +31,7 @@ function ddmmyy(ms: number): string {
 }
 
 /** Decimal degrees to `ddmm.mmmmm,N` (or `dddmm.mmmmm,E`), with 5 decimals of minutes (about 2 cm). */
-export function formatCoordinate(value: number, axis: 'lat' | 'lon'): string {
+export function formatNmeaCoordinate(value: number, axis: 'lat' | 'lon'): string {
   const abs = Math.abs(value);
   let deg = Math.floor(abs);
   let min = Math.round((abs - deg) * 60 * 1e5) / 1e5;
@@ -48,14 +48,14 @@ const opt = (v: number | undefined, digits: number): string => (v === undefined 
 export function formatGga(fix: FixToWrite, talker = 'GP'): string {
   const q = fix.fixQuality ?? 1;
   return withChecksum([
-    `${talker}GGA`, hhmmss(fix.timeMs), formatCoordinate(fix.lat, 'lat'), formatCoordinate(fix.lon, 'lon'),
+    `${talker}GGA`, hhmmss(fix.timeMs), formatNmeaCoordinate(fix.lat, 'lat'), formatNmeaCoordinate(fix.lon, 'lon'),
     String(q), pad(fix.satellites ?? 9, 2), opt(fix.hdop ?? 0.9, 1), opt(fix.altitudeM ?? 12.0, 1), 'M', '', 'M', '', '',
   ].join(','));
 }
 
 export function formatRmc(fix: FixToWrite, talker = 'GP'): string {
   return withChecksum([
-    `${talker}RMC`, hhmmss(fix.timeMs), 'A', formatCoordinate(fix.lat, 'lat'), formatCoordinate(fix.lon, 'lon'),
+    `${talker}RMC`, hhmmss(fix.timeMs), 'A', formatNmeaCoordinate(fix.lat, 'lat'), formatNmeaCoordinate(fix.lon, 'lon'),
     opt(fix.sogKn, 1), opt(fix.cogDeg, 1), ddmmyy(fix.timeMs), '', '', 'A',
   ].join(','));
 }

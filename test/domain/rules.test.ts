@@ -34,11 +34,10 @@ describe('validateObservation', () => {
   });
 
   describe('time and cruise', () => {
-    it.each(['2026-03-04 05:00', '2026-03-04T05:00:00+01:00', '2026-13-04T05:00:00Z', ''])('rejects time %j', (time) => {
+    it.each(['2026-03-04 05:00', '2026-03-04T05:00:00+01:00', '2026-13-04T05:00:00Z', '2026-03-04T05:00Z', ''])('rejects time %j', (time) => {
       expectFinding(observation({ time }), 'time-invalid', 'time', [`"${time}"`]);
     });
-    it('accepts minutes-only and fractional-second UTC times', () => {
-      expect(validateObservation(observation({ time: '2026-03-04T05:00Z' }))).toEqual([]);
+    it('accepts fractional-second UTC times (seconds required, as the store requires them)', () => {
       expect(validateObservation(observation({ time: '2026-03-04T05:00:00.250Z' }))).toEqual([]);
     });
     it('flags another cruise and an unknown observer (only with a cruise)', () => {
@@ -112,7 +111,18 @@ describe('validateObservation', () => {
     });
     it('negative thickness is an error; over 5 m of level ice is doubtful (common practice)', () => {
       expectFinding(withCat(0, { thicknessCm: -5 }), 'thickness-out-of-range', 'categories.0.thicknessCm', ['-5 cm']);
+      expectFinding(withCat(0, { stage: 'glacier', thicknessCm: 20_000 }), 'thickness-out-of-range', 'categories.0.thicknessCm', ['20000 cm']);
+      expect(find(validateObservation(withCat(0, { stage: 'glacier', thicknessCm: 3000 })), 'thickness-implausible')).toBeUndefined();
       expectFinding(withCat(0, { stage: 'multi-year', thicknessCm: 650 }), 'thickness-implausible', 'categories.0.thicknessCm', ['650 cm']);
+    });
+  });
+
+  describe('data from files', () => {
+    it('an unknown stage or floe size is an error and does not break the other rules', () => {
+      const o = withCat(1, { stage: 'brash-ish' as IceCategory['stage'] });
+      const fs = validateObservation(o, cruise);
+      expect(fs.map((f) => [f.code, f.path])).toEqual([['stage-unknown', 'categories.1.stage']]);
+      expectFinding(withCat(0, { floeSize: 'huge' as IceCategory['floeSize'] }), 'floe-size-unknown', 'categories.0.floeSize', ['"huge"']);
     });
   });
 
@@ -155,6 +165,7 @@ describe('validateObservation', () => {
       expectFinding(observation({ position: { lat: 79, lon: 3, source: 'gps-serial', accuracyM: -3 } }), 'position-accuracy-invalid', 'position.accuracyM', ['-3 m']);
       expectFinding(observation({ position: { lat: 79, lon: 3, source: 'gps-serial', fixTime: '2026-03-04T04:30:00Z' } }), 'position-fix-stale', 'position.fixTime', ['30 min']);
       expect(validateObservation(observation({ position: { lat: 79, lon: 3, source: 'gps-serial', fixTime: '2026-03-04T04:50:00Z' } }))).toEqual([]);
+      expectFinding(observation({ position: { lat: 79, lon: 3, source: 'gps-serial', fixTime: 'yesterday' } }), 'position-fix-time-invalid', 'position.fixTime', ['"yesterday"']);
     });
   });
 

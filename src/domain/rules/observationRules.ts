@@ -3,6 +3,7 @@
 // catalogue.ts, write the function here, append it to the list, and test it (docs/dev/domain.md).
 
 import type { Cruise, Finding, IceCategory, Observation } from '../model.ts';
+import { FLOE_SIZE_KEYS, STAGE_KEYS } from '../model.ts';
 import { STAGES } from '../nomenclature.ts';
 import { isStageSurelyThicker, isSurelyThicker } from '../ordering.ts';
 import { isValidLatLon } from '../position.ts';
@@ -25,14 +26,21 @@ export const fmt = (v: number): string => (Number.isFinite(v) ? String(Math.roun
 const isTenths = (v: number, min = 0): boolean => Number.isInteger(v) && v >= min && v <= 10;
 const isNum = (v: unknown): v is number => typeof v === 'number';
 const catLabel = (i: number): string => `Category ${i + 1}`;
+/** Data from a file may carry a stage we do not know; rules that look stages up skip those. */
+const knownStage = (stage: unknown): boolean => (STAGE_KEYS as readonly unknown[]).includes(stage);
 
-/** ISO 8601 UTC with a trailing Z, e.g. 2026-03-04T05:00:00Z (seconds and fractions optional). */
-const ISO_UTC = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?Z$/;
+/**
+ * ISO 8601 UTC with seconds and a trailing Z, e.g. 2026-03-04T05:00:00Z (fractions optional):
+ * the same form the store (src/db/validate.ts) accepts, so a time that passes here can be saved.
+ */
+const ISO_UTC = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d{1,9})?Z$/;
 
 export function isIsoUtc(time: string): boolean {
   return ISO_UTC.test(time) && Number.isFinite(Date.parse(time));
 }
 
+/** No ice is thicker than this (100 m), the store's own limit too. */
+export const MAX_THICKNESS_CM = 10_000;
 /** Level ice above this is doubtful: thermodynamic growth rarely exceeds about 3 m (common practice). */
 export const MAX_PLAUSIBLE_THICKNESS_CM = 500;
 /** Snow on sea ice deeper than this is doubtful (common practice). */
@@ -98,17 +106,17 @@ const orderRule: ObservationRule = {
     for (let i = 1; i < cats.length; i++) {
       const prev = cats[i - 1] as IceCategory;
       const cur = cats[i] as IceCategory;
-      if (isSurelyThicker(cur, prev)) {
+      if (knownStage(prev.stage) && knownStage(cur.stage) && isSurelyThicker(cur, prev)) {
         out.push(finding('categories-not-thickest-first', `categories.${i}`,
           `${catLabel(i)} (${describe(cur)}) is thicker than category ${i} (${describe(prev)}): categories go thickest first`));
       }
     }
     const first = cats[0];
     const last = cats[cats.length - 1];
-    if (obs.traceStage && first && obs.traceStage !== 'undetermined' && first.stage !== 'undetermined' && !isStageSurelyThicker(obs.traceStage, first.stage)) {
+    if (obs.traceStage && first && knownStage(obs.traceStage) && knownStage(first.stage) && obs.traceStage !== 'undetermined' && first.stage !== 'undetermined' && !isStageSurelyThicker(obs.traceStage, first.stage)) {
       out.push(finding('trace-not-thicker', 'traceStage', `Trace stage ${STAGES[obs.traceStage].label.toLowerCase()} is not thicker than the thickest category (${STAGES[first.stage].label.toLowerCase()})`));
     }
-    if (obs.remainingStage && last && obs.remainingStage !== 'undetermined' && last.stage !== 'undetermined' && !isStageSurelyThicker(last.stage, obs.remainingStage)) {
+    if (obs.remainingStage && last && knownStage(obs.remainingStage) && knownStage(last.stage) && obs.remainingStage !== 'undetermined' && last.stage !== 'undetermined' && !isStageSurelyThicker(last.stage, obs.remainingStage)) {
       out.push(finding('remaining-not-thinner', 'remainingStage', `Remaining stage ${STAGES[obs.remainingStage].label.toLowerCase()} is not thinner than the thinnest category (${STAGES[last.stage].label.toLowerCase()})`));
     }
     return out;
@@ -129,11 +137,18 @@ const categoryRule: ObservationRule = {
     const out: Finding[] = [];
     obs.categories.forEach((c, i) => {
       const at = (f: string): string => `categories.${i}.${f}`;
+      if (!knownStage(c.stage)) {
+        out.push(finding('stage-unknown', at('stage'), `${catLabel(i)} stage "${String(c.stage)}" is not a known stage of development`));
+        return;
+      }
+      if (c.floeSize !== undefined && !(FLOE_SIZE_KEYS as readonly unknown[]).includes(c.floeSize)) {
+        out.push(finding('floe-size-unknown', at('floeSize'), `${catLabel(i)} floe size "${String(c.floeSize)}" is not a known form of ice`));
+      }
       const info = STAGES[c.stage];
       if (isNum(c.thicknessCm)) {
         const t = c.thicknessCm;
-        if (!Number.isFinite(t) || t < 0) {
-          out.push(finding('thickness-out-of-range', at('thicknessCm'), `${catLabel(i)} thickness ${fmt(t)} cm is not a thickness (0 cm or more)`));
+        if (!Number.isFinite(t) || t < 0 || t > MAX_THICKNESS_CM) {
+          out.push(finding('thickness-out-of-range', at('thicknessCm'), `${catLabel(i)} thickness ${fmt(t)} cm is not a thickness from 0 to ${MAX_THICKNESS_CM} cm`));
         } else {
           if (t > MAX_PLAUSIBLE_THICKNESS_CM && info.family !== 'land') {
             out.push(finding('thickness-implausible', at('thicknessCm'), `${catLabel(i)} thickness ${fmt(t)} cm is more than level sea ice reaches (about ${MAX_PLAUSIBLE_THICKNESS_CM / 100} m)`));
@@ -206,10 +221,12 @@ const positionRule: ObservationRule = {
     if (isNum(p.accuracyM) && (!Number.isFinite(p.accuracyM) || p.accuracyM < 0)) {
       out.push(finding('position-accuracy-invalid', 'position.accuracyM', `Position accuracy ${fmt(p.accuracyM)} m is not a distance (0 m or more)`));
     }
-    if (p.fixTime !== undefined && isIsoUtc(obs.time)) {
+    if (p.fixTime !== undefined && !isIsoUtc(p.fixTime)) {
+      out.push(finding('position-fix-time-invalid', 'position.fixTime', `Position fix time "${p.fixTime}" is not an ISO 8601 UTC time such as 2026-03-04T05:00:00Z`));
+    } else if (p.fixTime !== undefined && isIsoUtc(obs.time)) {
       const minutes = Math.abs(Date.parse(p.fixTime) - Date.parse(obs.time)) / 60000;
-      if (!Number.isFinite(minutes) || minutes > MAX_FIX_AGE_MINUTES) {
-        out.push(finding('position-fix-stale', 'position.fixTime', `Position fix time ${p.fixTime} is ${Number.isFinite(minutes) ? `${Math.round(minutes)} min` : 'far'} from the observation time (more than ${MAX_FIX_AGE_MINUTES} min)`));
+      if (minutes > MAX_FIX_AGE_MINUTES) {
+        out.push(finding('position-fix-stale', 'position.fixTime', `Position fix time ${p.fixTime} is ${Math.round(minutes)} min from the observation time (more than ${MAX_FIX_AGE_MINUTES} min)`));
       }
     }
     return out;

@@ -44,10 +44,14 @@ export function Field({ id, label, hint, findings, className, children }: FieldP
   const worst = findings.some((f) => f.severity === 'error') ? 'error' : findings.some((f) => f.severity === 'warning') ? 'warning' : '';
   return (
     <div className={`field ${className ?? ''} ${worst ? `field-has-${worst}` : ''}`}>
-      <label htmlFor={id}>
-        {label}
-        {hint && <kbd className="field-hint">{hint}</kbd>}
-      </label>
+      <span className="field-label">
+        <label htmlFor={id}>{label}</label>
+        {hint && (
+          <kbd className="field-hint" aria-hidden="true">
+            {hint}
+          </kbd>
+        )}
+      </span>
       {children}
       <FindingLines id={id} findings={findings} />
     </div>

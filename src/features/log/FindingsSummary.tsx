@@ -4,12 +4,19 @@ import type { Finding } from '../../domain/model';
 import { useObservationForm } from '../../state/observationForm';
 import { findingKey } from './formModel';
 
-export function FindingsSummary({ findings }: { findings: readonly Finding[] }) {
+export function FindingsSummary({ findings, pristine = false }: { findings: readonly Finding[]; pristine?: boolean }) {
   const notes = useObservationForm((s) => s.draft.warningNotes);
   const setField = useObservationForm((s) => s.setField);
   const errors = findings.filter((f) => f.severity === 'error');
   const warnings = findings.filter((f) => f.severity === 'warning');
   const infos = findings.filter((f) => f.severity === 'info');
+  if (pristine) {
+    return (
+      <section className="findings-summary" aria-label="Checks" aria-live="polite">
+        <p className="muted">The entry is checked as you type. Start with the total concentration, or from the previous observation (Alt+P).</p>
+      </section>
+    );
+  }
   if (findings.length === 0) {
     return (
       <section className="findings-summary ok" aria-label="Checks" aria-live="polite">

@@ -88,7 +88,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
           onEdit={(o) => {
             select(o.id, 'list');
             void openEdit(cruise.id, o.id, () => ({ draft: observationToDraft(o, { asNext: false }), editing: { id: o.id, expectedRevision: o.revision } })).then(() => {
-              document.getElementById('form-title')?.scrollIntoView({ block: 'start' });
+              document.getElementById('form-title')?.scrollIntoView?.({ block: 'start' });
               document.getElementById('f-total')?.focus();
             });
           }}

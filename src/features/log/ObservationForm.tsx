@@ -93,9 +93,11 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
     () => readDraft(draft, { id: draft.id, cruiseId: cruise.id, now, livePosition }),
     [draft, cruise.id, now, livePosition],
   );
+  // A form nobody has touched yet has nothing to check: findings start with the first change.
+  const checked = dirty || editing !== null;
   const findings = useMemo(
-    () => [...reading.findings, ...observationFindings(reading.observation, cruise, observations)],
-    [reading, cruise, observations],
+    () => (checked ? [...reading.findings, ...observationFindings(reading.observation, cruise, observations)] : []),
+    [checked, reading, cruise, observations],
   );
   const filled = filledCategories(draft);
 
@@ -392,7 +394,7 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
           <PhotoField cruiseId={cruise.id} />
         </fieldset>
 
-        <FindingsSummary findings={findings} />
+        <FindingsSummary findings={findings} pristine={!checked} />
 
         <div className="save-bar">
           <button type="submit" className="button primary save-button">

@@ -90,6 +90,11 @@ export function PickList<V extends string>({
         aria-activedescendant={open && highlighted ? `${listId}-${highlighted.value}` : undefined}
         value={shown}
         onFocus={(e) => e.currentTarget.select()}
+        // A click (or tap) opens the whole list with the text selected, so typing starts afresh.
+        onClick={(e) => {
+          e.currentTarget.select();
+          setOpen(true);
+        }}
         onBlur={() => {
           if (open) commit();
         }}
