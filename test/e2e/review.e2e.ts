@@ -55,6 +55,8 @@ describe('cruise review of the demo cruise', () => {
     expect(await first.locator('th').innerText()).toBe(latitudeBandLabel(north.south));
     expect(await first.locator('td').nth(0).innerText()).toBe(String(north.observations));
     expect(await first.locator('td').nth(2).innerText()).toBe(`${north.meanConcentration!.toFixed(1)}/10`);
+    // The track overview: one dot per observation with a position.
+    expect(await page.getByTestId('track-sketch').locator('circle').count()).toBe(demo.observations.filter((o) => o.position).length);
     // uPlot draws on canvas: every chart has one with a size.
     await page.locator('[data-testid="chart-temperature"] canvas').waitFor();
     const sizes = await page.locator('.review-chart canvas').evaluateAll((cs) => cs.map((c) => (c as HTMLCanvasElement).width));
