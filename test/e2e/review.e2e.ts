@@ -92,6 +92,20 @@ describe('cruise review of the demo cruise', () => {
     const { page } = app;
     await page.locator('[data-code="implied-speed"]').first().getByRole('button', { name: 'Show on the map' }).click();
     await page.getByRole('heading', { name: 'Ice map' }).waitFor();
+    // Let the map finish starting (its worker and sources) before leaving it: leaving at once
+    // can cut its blob: loads short, which Chromium reports as console errors.
+    await page.locator('main canvas').first().waitFor({ timeout: 30_000 });
+    await page.waitForTimeout(1500);
+    await showScreen(page, 'Review');
+    await page.getByTestId('value-observations').waitFor();
+  });
+
+  it('opens a finding in the watch log form, with the revision that holds the review', async () => {
+    const { page } = app;
+    const f = findings.find((x) => x.code === 'stage-thickness-mismatch')!;
+    await page.locator('[data-code="stage-thickness-mismatch"]').first().getByRole('button', { name: 'Open in the form' }).click();
+    // Revision 2: the review saved above is a new revision of the observation.
+    await page.getByRole('heading', { name: `Editing the ${f.time.slice(11, 16)} UTC observation (revision 2)` }).waitFor();
     await showScreen(page, 'Review');
     await page.getByTestId('value-observations').waitFor();
   });
