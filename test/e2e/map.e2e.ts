@@ -44,7 +44,7 @@ async function expectBandColours(page: Page, positions: readonly (readonly [numb
   expect(colourDistance(ship, hexRgb(PALETTES.day.ship)), `${label}: ship drawn ${ship}`).toBeLessThan(40);
   rgb.forEach((c, i) => {
     expect(colourDistance(c, expected(i)), `${label}: observation ${i} at ${positions[i]} drawn ${c}, want ${expected(i)}`).toBeLessThan(30);
-  }, 240_000);
+  });
 }
 
 /** Pixels in a ring round a point, to find a circle's stroke. */
