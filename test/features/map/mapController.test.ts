@@ -132,7 +132,7 @@ class FakeContext {
   [k: string]: unknown;
 }
 const contextProxy = () =>
-  new Proxy(new FakeContext(), { get: (t, k) => (k in t ? (t as Record<string | symbol, unknown>)[k] : () => undefined), set: () => true });
+  new Proxy(new FakeContext(), { get: (t, k) => (k in t ? (t as unknown as Record<string | symbol, unknown>)[k] : () => undefined), set: () => true });
 vi.stubGlobal(
   'OffscreenCanvas',
   class {
