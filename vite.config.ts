@@ -1,11 +1,14 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
+import { pwa, stripCspInDev } from './src/app/pwa.config.ts';
 
 // One config for the app build and the unit/component/database tests.
 // Browser (e2e) tests and benchmarks have their own configs because they need the built app
 // and must run one file at a time on a 2-core machine.
 export default defineConfig({
-  plugins: [react()],
+  plugins: [react(), pwa(), stripCspInDev()],
+  // A build marker the app shows and the update test checks; CI or a release may set it.
+  define: { __FLOE_BUILD__: JSON.stringify(process.env.FLOE_BUILD_ID ?? new Date().toISOString()) },
   // Keep the cache in the project, not in node_modules, so several checkouts that share one
   // node_modules (git worktrees) do not trample each other's optimised deps.
   cacheDir: '.vite-cache',
@@ -19,6 +22,8 @@ export default defineConfig({
   worker: { format: 'es' },
   test: {
     reporters: ['default', ['json', { outputFile: 'test-results/unit.json' }]],
+    // Property tests over the database take seconds; a loaded 2-core machine must not time them out.
+    testTimeout: 30_000,
     projects: [
       {
         extends: true,

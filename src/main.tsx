@@ -1,6 +1,7 @@
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';
 import { App } from './app/App';
+import { registerServiceWorker } from './app/pwa';
 import './app/app.css';
 
 const root = document.getElementById('root');
@@ -10,3 +11,4 @@ createRoot(root).render(
     <App />
   </StrictMode>,
 );
+void registerServiceWorker();

@@ -7,6 +7,9 @@ import { ReviewScreen } from '../features/review/ReviewScreen';
 import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
+import { UpdateBanner } from './UpdateBanner';
+import { LogBackground } from '../features/log/LogBackground';
+import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -79,6 +82,9 @@ export function App() {
         </label>
       </header>
       <NavigationNotice />
+      <UpdateBanner />
+      <LogBackground />
+      <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />
       </main>

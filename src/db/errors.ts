@@ -63,7 +63,7 @@ export class StorageFullError extends FloeDbError {
   readonly kind = 'storage-full';
   constructor(what: string, cause?: unknown) {
     super(
-      `Storage is full: ${what} was not saved, and nothing of it was written. Your draft is kept. ` +
+      `Storage is full: ${what} was not saved, and nothing of it was written; what was saved before, drafts included, is kept. ` +
         'Free disk space (or export and remove old photos), then save again.',
       { cause },
     );

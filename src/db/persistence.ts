@@ -17,16 +17,26 @@ function storageManager(): StorageManager | undefined {
   return typeof navigator !== 'undefined' && navigator.storage && typeof navigator.storage.persisted === 'function' ? navigator.storage : undefined;
 }
 
+let asking: Promise<boolean> | null = null;
+
 /**
  * Asks the browser for persistent storage, once per profile (asking again only repeats the
- * prompt some browsers show); the answer is kept in the database. Returns whether storage is
- * persistent now.
+ * prompt some browsers show); the answer is kept in the database. `askAgain` is for the user's
+ * own "ask again" button. Returns whether storage is persistent now.
  */
-export async function requestPersistence(): Promise<boolean> {
+export function requestPersistence({ askAgain = false } = {}): Promise<boolean> {
+  // Screens mounting at once (and React's double effects in development) share one request.
+  asking ??= ask(askAgain).finally(() => {
+    asking = null;
+  });
+  return asking;
+}
+
+async function ask(askAgain: boolean): Promise<boolean> {
   const sm = storageManager();
   if (!sm) return false;
   if (await sm.persisted()) return true;
-  if (await getMeta('persistenceRequest')) return false;
+  if (!askAgain && (await getMeta('persistenceRequest'))) return false;
   const granted = await sm.persist();
   try {
     await setMeta('persistenceRequest', { askedAt: nowIso(), granted });

@@ -56,13 +56,18 @@ export function deriveEggCode(obs: EggCodeInput): EggCode {
   code.ct = obs.totalConcentration === null ? EGG_UNKNOWN : String(obs.totalConcentration);
   const cats = sortCategoriesThickestFirst(obs.categories).categories.slice(0, 3);
   cats.forEach((c, i) => {
-    code[S_FIELDS[i] as EggCodeField] = STAGES[c.stage].eggCode;
-    code[F_FIELDS[i] as EggCodeField] = c.floeSize ? FLOE_SIZES[c.floeSize].eggCode : '';
+    code[S_FIELDS[i] as EggCodeField] = stageSymbol(c.stage);
+    code[F_FIELDS[i] as EggCodeField] = c.floeSize ? (FLOE_SIZES[c.floeSize] as (typeof FLOE_SIZES)[FloeSizeKey] | undefined)?.eggCode ?? EGG_UNKNOWN : '';
     if (cats.length > 1) code[C_FIELDS[i] as EggCodeField] = String(c.partialConcentration);
   });
-  if (obs.traceStage) code.so = STAGES[obs.traceStage].eggCode;
-  if (obs.remainingStage) code.sd = STAGES[obs.remainingStage].eggCode;
+  if (obs.traceStage) code.so = stageSymbol(obs.traceStage);
+  if (obs.remainingStage) code.sd = stageSymbol(obs.remainingStage);
   return code;
+}
+
+/** The stage's symbol; an unknown stage (bad data from a file) shows as X, undetermined. */
+function stageSymbol(stage: StageKey): string {
+  return (STAGES[stage] as (typeof STAGES)[StageKey] | undefined)?.eggCode ?? EGG_UNKNOWN;
 }
 
 /** One-line form for lists and CSV: `Ct Ca Cb Cc / So Sa Sb Sc Sd / Fa Fb Fc`, `-` for blank. */

@@ -50,7 +50,8 @@ export const OPEN_WATER_KINDS = [
 ] as const;
 export type OpenWaterKind = (typeof OPEN_WATER_KINDS)[number];
 
-export const POSITION_SOURCES = ['gps-serial', 'geolocation', 'manual', 'track-interpolated'] as const;
+// `track-file`: a point read from an imported GPX, NMEA log or CSV track file.
+export const POSITION_SOURCES = ['gps-serial', 'geolocation', 'manual', 'track-interpolated', 'track-file'] as const;
 export type PositionSource = (typeof POSITION_SOURCES)[number];
 
 export interface Position {

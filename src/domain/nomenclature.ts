@@ -6,7 +6,7 @@
 // code symbols as WMO-No. 259 and the ice chart standards give them; SIGRID-3 (WMO/TD-No. 1214)
 // for the interchange codes. Snow kinds are our own plain-language names.
 
-import type { FloeSizeKey, OpenWaterKind, SnowKind, StageKey, Tenths } from './model.ts';
+import type { FloeSizeKey, MeltPonds, OpenWaterKind, PositionSource, SnowKind, StageKey, Tenths } from './model.ts';
 
 /** Where a stage sits in the "thickest first" order of the egg code (see `ordering.ts`). */
 export interface StageRank {
@@ -215,6 +215,22 @@ export const OPEN_WATER_LABELS: Readonly<Record<OpenWaterKind, string>> = {
   'flaw-lead': 'Flaw lead',
   polynya: 'Polynya',
   'refrozen-lead': 'Refrozen lead',
+};
+
+/** Where a position came from (our own labels). */
+export const POSITION_SOURCE_LABELS: Readonly<Record<PositionSource, string>> = {
+  'gps-serial': 'GPS receiver (NMEA 0183)',
+  geolocation: 'Device location',
+  manual: 'Typed in',
+  'track-interpolated': 'Interpolated from the track',
+  'track-file': 'Imported track file',
+};
+
+/** Melt-pond states (our own labels). */
+export const MELT_POND_STATE_LABELS: Readonly<Record<NonNullable<MeltPonds['state']>, string>> = {
+  open: 'Open ponds',
+  frozen: 'Frozen-over ponds',
+  drained: 'Drained ponds',
 };
 
 export function stageLabel(key: StageKey): string {

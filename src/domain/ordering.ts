@@ -25,9 +25,11 @@ function rankForThickness(cm: number): StageRank {
  * where the stage is coarse (nilas, young, thin first-year, first-year, undetermined).
  */
 export function effectiveRank(stage: StageKey, thicknessCm?: number): StageRank {
-  const base = STAGES[stage].rank ?? ALL_RANKS;
+  // `?.`: data from a file may carry an unknown stage; it ranks as undetermined.
+  const info = STAGES[stage] as (typeof STAGES)[StageKey] | undefined;
+  const base = info?.rank ?? ALL_RANKS;
   if (base.lo === base.hi || thicknessCm === undefined || !Number.isFinite(thicknessCm)) return base;
-  if (STAGES[stage].family === 'nilas') {
+  if (info?.family === 'nilas') {
     const r = thicknessCm < 5 ? 2 : 3;
     return { lo: r, hi: r };
   }
@@ -54,9 +56,9 @@ export function isSurelyThicker(b: IceCategory, a: IceCategory): boolean {
 
 /** Same test for two stages with no thickness (trace stage So, remaining stage Sd). */
 export function isStageSurelyThicker(b: StageKey, a: StageKey): boolean {
-  const rb = STAGES[b].rank;
-  const ra = STAGES[a].rank;
-  return rb !== null && ra !== null && rb.lo > ra.hi;
+  const rb = effectiveRank(b);
+  const ra = effectiveRank(a);
+  return rb.lo > ra.hi;
 }
 
 function sortKey(c: IceCategory): [number, number] {

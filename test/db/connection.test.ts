@@ -93,7 +93,7 @@ describe('failed writes leave the database unchanged', () => {
     selectDatabase(db.name()).use(quotaFailure((table) => table === 'revisions'));
     const err = await saveObservation({ ...first, notes: 'edit' }, { expectedRevision: 1 }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(StorageFullError);
-    expect((err as Error).message).toMatch(/Storage is full.*draft is kept/);
+    expect((err as Error).message).toMatch(/Storage is full.*drafts included, is kept/);
     selectDatabase(db.name());
     expect(await dumpAll()).toEqual(before);
     expect((await getObservation(first.id))?.notes).toBe('Snow cover patchy.');

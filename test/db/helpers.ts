@@ -4,6 +4,9 @@ import { afterEach, beforeEach } from 'vitest';
 import type { DBCore, DBCoreMutateRequest, Middleware } from 'dexie';
 import type { Cruise, Observation } from '../../src/domain/model';
 import { closeFloeDb, createCruise, selectDatabase, type CruiseInput, type FloeDatabaseOptions, type ObservationInput } from '../../src/db';
+import { CRUISE_INPUT } from './fixtures/demo-cruise';
+
+export { CRUISE_INPUT };
 
 let counter = 0;
 
@@ -23,19 +26,6 @@ export function freshDatabasePerTest(opts: FloeDatabaseOptions = {}): { name: ()
   });
   return { name: () => name };
 }
-
-export const CRUISE_INPUT: CruiseInput = {
-  name: 'Weddell Margin Transect 2026',
-  vesselName: 'RV Tern Hollow',
-  iceClass: 'PC5',
-  intervalMinutes: 60,
-  observers: [
-    { id: 'obs-ak', name: 'Ada Kvalheim', initials: 'AK' },
-    { id: 'obs-rm', name: 'Rafael Moyo', initials: 'RM' },
-  ],
-  displayTimeZone: 'UTC',
-  maxSpeedKn: 16,
-};
 
 export function makeCruise(overrides: Partial<CruiseInput> = {}): Promise<Cruise> {
   return createCruise({ ...CRUISE_INPUT, ...overrides });

@@ -40,6 +40,11 @@ describe('deriveEggCode (WMO-No. 259 egg code)', () => {
     expect(code).toMatchObject({ so: '9.', sa: '4.', sb: '5', sd: '1', ca: '6', cb: '4' });
   });
 
+  it('an unknown stage or form from a damaged file shows as X instead of failing', () => {
+    const code = deriveEggCode({ totalConcentration: 5, categories: [cat(5, 'mush' as StageKey, { floeSize: 'huge' as IceCategory['floeSize'] })] });
+    expect(code).toMatchObject({ sa: 'X', fa: 'X' });
+  });
+
   it('an unjudged total is X and blank forms stay blank', () => {
     const code = deriveEggCode({ totalConcentration: null, categories: [] });
     expect(eggCodeText(code)).toBe('X - - - / - - - - - / - - -');

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { FLOE_SIZE_KEYS, OPEN_WATER_KINDS, SNOW_KINDS, STAGE_KEYS } from '../../src/domain/model.ts';
+import { FLOE_SIZE_KEYS, OPEN_WATER_KINDS, POSITION_SOURCES, SNOW_KINDS, STAGE_KEYS } from '../../src/domain/model.ts';
 import {
   CONCENTRATION_TERMS, DEFORMATION_KINDS, DEFORMATION_LABELS, FLOE_SIZES, OPEN_WATER_LABELS,
-  SNOW_LABELS, STAGES, concentrationTerm, sigrid3Concentration, sigrid3ConcentrationRange,
+  POSITION_SOURCE_LABELS, SNOW_LABELS, STAGES, concentrationTerm, sigrid3Concentration, sigrid3ConcentrationRange,
 } from '../../src/domain/nomenclature.ts';
 
 describe('stages of development', () => {
@@ -130,6 +130,7 @@ describe('labels for the UI', () => {
   it('every snow kind and open-water kind has a label', () => {
     for (const k of SNOW_KINDS) expect(SNOW_LABELS[k]).toMatch(/\w/);
     for (const k of OPEN_WATER_KINDS) expect(OPEN_WATER_LABELS[k]).toMatch(/\w/);
+    for (const k of POSITION_SOURCES) expect(POSITION_SOURCE_LABELS[k]).toMatch(/\w/);
     // WMO-No. 259 term.
     expect(OPEN_WATER_LABELS.polynya).toBe('Polynya');
   });

@@ -44,6 +44,8 @@ describe('parseCoordinate', () => {
   it.each([
     ['', 'lat', 'latitude is empty'],
     ['74 75 N', 'lat', 'minutes "75" must be less than 60'],
+    ['74 60 N', 'lat', 'minutes "60" must be less than 60'],
+    ['74 10 60 N', 'lat', 'seconds "60" must be less than 60'],
     ['74 12 61 N', 'lat', 'seconds "61" must be less than 60'],
     ['95N', 'lat', 'latitude "95N" is beyond 90°'],
     ['181 E', 'lon', 'longitude "181 E" is beyond 180°'],

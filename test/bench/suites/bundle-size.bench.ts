@@ -4,11 +4,18 @@ import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { absoluteRow, type BenchSuite } from '../bench-kit';
 
-function jsFiles(dir: string): string[] {
+/**
+ * The service worker (dist/sw.js) and its workbox runtime (dist/workbox-<hash>.js) are left out:
+ * the browser loads them apart from the app, and only at install or update time.
+ */
+const SERVICE_WORKER_FILES = /^(sw|workbox-[\w-]+)\.js$/;
+
+function jsFiles(dir: string, top = true): string[] {
   return readdirSync(dir).flatMap((name) => {
     const p = join(dir, name);
-    if (statSync(p).isDirectory()) return jsFiles(p);
-    return /\.(m?js)$/.test(name) && !name.startsWith('sw') && !name.startsWith('workbox-') ? [p] : [];
+    if (statSync(p).isDirectory()) return jsFiles(p, false);
+    if (top && SERVICE_WORKER_FILES.test(name)) return [];
+    return /\.m?js$/.test(name) ? [p] : [];
   });
 }
 

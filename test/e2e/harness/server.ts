@@ -22,16 +22,26 @@ const TYPES: Record<string, string> = {
 export interface StaticServer {
   url: string;
   close: () => Promise<void>;
+  /** Serve another folder from now on (a second build, to test app updates). */
+  setRoot: (root: string) => Promise<void>;
+  /** How many requests reached the server so far (to prove a load came from the service worker). */
+  requestCount: () => number;
 }
 
-export async function serveDirectory(root: string): Promise<StaticServer> {
-  const base = resolve(root);
+async function checkBuilt(base: string): Promise<void> {
   try {
     await stat(join(base, 'index.html'));
   } catch {
     throw new Error(`No built app in ${base}: run "npm run build" before the browser tests (npm test does this).`);
   }
+}
+
+export async function serveDirectory(root: string): Promise<StaticServer> {
+  let base = resolve(root);
+  await checkBuilt(base);
+  let requests = 0;
   const server: Server = createServer((req, res) => {
+    requests++;
     void (async () => {
       const path = decodeURIComponent(new URL(req.url ?? '/', 'http://x').pathname);
       let file = normalize(join(base, path));
@@ -63,6 +73,17 @@ export async function serveDirectory(root: string): Promise<StaticServer> {
   if (addr === null || typeof addr === 'string') throw new Error('static server has no port');
   return {
     url: `http://127.0.0.1:${addr.port}/`,
-    close: () => new Promise<void>((ok) => server.close(() => ok())),
+    close: () =>
+      new Promise<void>((ok) => {
+        server.close(() => ok());
+        // Keep-alive connections would otherwise hold the port open (and keep serving).
+        server.closeAllConnections();
+      }),
+    setRoot: async (next) => {
+      const resolved = resolve(next);
+      await checkBuilt(resolved);
+      base = resolved;
+    },
+    requestCount: () => requests,
   };
 }
