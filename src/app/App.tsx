@@ -8,6 +8,7 @@ import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
 import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
+import { LogBackground } from '../features/log/LogBackground';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 
 const SCREEN_LABELS: Record<Screen, string> = {
@@ -82,6 +83,7 @@ export function App() {
       </header>
       <NavigationNotice />
       <UpdateBanner />
+      <LogBackground />
       <DatabaseStatus />
       <main className="app-main" id="main">
         <ScreenBody screen={screen} />

@@ -1,10 +1,12 @@
 // CSV track files (papaparse): a header row, then one point a row. Columns are found by their
 // usual spellings (time/timestamp/datetime/utc, or separate date and time; lat/latitude;
 // lon/long/lng/longitude; optional speed, course and heading). Times are ISO 8601 (a time with
-// no zone is read as UTC, as a ship's log is kept in UTC) or epoch seconds / milliseconds.
+// no zone is read as UTC, as a ship's log is kept in UTC) or epoch seconds / milliseconds;
+// positions in decimal degrees or any notation the domain's coordinate parser reads.
 // The delimiter (comma, semicolon, tab) is detected.
 import Papa from 'papaparse';
 import type { TrackPoint } from '../domain/model';
+import { parseCoordinate } from '../domain/position';
 import {
   BadLineList, checkLatLon, finishPoints, inChunks, isoUtc, type TrackImportOptions, type TrackImportResult,
 } from './trackImport';
@@ -60,6 +62,14 @@ export function parseTrackTime(value: string, datePart?: string): number {
   return Date.parse(withZone.replace(' ', 'T'));
 }
 
+/** Decimal degrees, or any notation the domain's coordinate parser reads (82°30.5'N, 82 30.5 N ...); a reason otherwise. */
+function coordinateCell(cell: string, axis: 'lat' | 'lon'): number | string {
+  const s = cell.trim();
+  if (/^[+-]?(\d+\.?\d*|\.\d+)$/.test(s)) return Number(s);
+  const r = parseCoordinate(s, axis);
+  return r.ok ? r.value : r.error;
+}
+
 function optionalNumber(row: readonly string[], i: number | undefined): number | undefined {
   if (i === undefined) return undefined;
   const s = (row[i] ?? '').trim();
@@ -111,19 +121,26 @@ export async function importCsvTrack(input: string, opts: TrackImportOptions): P
   const points: TrackPoint[] = [];
   await inChunks(data.length, opts, 'building the track', 0.3, 1, (i) => {
     const { line, cells } = data[i] as { line: number; cells: string[] };
+    // A decimal comma in a comma-separated file shows up as one field too many.
+    if (cells.length !== header.cells.length) {
+      bad.add(line, `row has ${cells.length} fields, the header has ${header.cells.length} (a decimal comma, or a missing separator?)`);
+      return;
+    }
     const timeRaw = cells[c.time as number] ?? '';
     const ms = parseTrackTime(timeRaw, c.date === undefined ? undefined : cells[c.date]);
     if (Number.isNaN(ms)) {
       bad.add(line, `time "${timeRaw}" is neither ISO 8601 nor epoch seconds or milliseconds`);
       return;
     }
-    const latRaw = (cells[c.lat as number] ?? '').trim();
-    const lonRaw = (cells[c.lon as number] ?? '').trim();
-    const lat = latRaw === '' ? Number.NaN : Number(latRaw);
-    const lon = lonRaw === '' ? Number.NaN : Number(lonRaw);
+    const lat = coordinateCell(cells[c.lat as number] ?? '', 'lat');
+    const lon = coordinateCell(cells[c.lon as number] ?? '', 'lon');
+    if (typeof lat === 'string' || typeof lon === 'string') {
+      bad.add(line, [lat, lon].filter((x) => typeof x === 'string').join('; '));
+      return;
+    }
     const why = checkLatLon(lat, lon);
     if (why) {
-      bad.add(line, `${why} ("${latRaw}", "${lonRaw}"; decimal degrees expected)`);
+      bad.add(line, why);
       return;
     }
     const p: TrackPoint = { cruiseId: opts.cruiseId, time: isoUtc(ms), lat, lon, source: 'track-file' };

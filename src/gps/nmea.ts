@@ -286,6 +286,7 @@ function failure(kind: NmeaErrorKind, sentence: string, message: string, raw: st
 }
 
 const ADDRESS = /^[A-Z][A-Z0-9]{4}$/;
+const PROPRIETARY = /^P[A-Z0-9]{3,9}$/;
 const NOT_PRINTABLE = /[^\x20-\x7e]/;
 const HEX2 = /^[0-9A-Fa-f]{2}$/;
 const SUPPORTED = new Set<string>(SUPPORTED_SENTENCES);
@@ -294,12 +295,16 @@ const SUPPORTED = new Set<string>(SUPPORTED_SENTENCES);
 export function parseNmea(line: string, opts: ParseOptions = {}): ParseResult {
   const raw = line.trim();
   if (raw.length > MAX_SENTENCE_LENGTH) return failure('framing', '?', `line of ${raw.length} characters is too long for an NMEA sentence`, raw);
-  if (raw.charCodeAt(0) !== 36 /* $ */) return failure('framing', '?', 'does not start with "$"', raw);
+  // `!` starts encapsulated sentences (AIS VDM/VDO) that share a line with GPS on many ships.
+  const startChar = raw.charCodeAt(0);
+  if (startChar !== 36 /* $ */ && startChar !== 33 /* ! */) return failure('framing', '?', 'does not start with "$"', raw);
   const star = raw.lastIndexOf('*');
   const body = star >= 0 ? raw.slice(1, star) : raw.slice(1);
   const comma = body.indexOf(',');
   const address = comma >= 0 ? body.slice(0, comma) : body;
-  if (!ADDRESS.test(address)) return failure('framing', '?', `address field "${address.slice(0, 12)}" is not a talker id and a sentence type`, raw);
+  // Proprietary sentences ($P + maker code + anything, e.g. $PGRME, $PUBX) are checked but not used.
+  const proprietary = PROPRIETARY.test(address);
+  if (!proprietary && !ADDRESS.test(address)) return failure('framing', '?', `address field "${address.slice(0, 12)}" is not a talker id and a sentence type`, raw);
   const name = address;
   // Printable ASCII only (NMEA 0183 reserves the rest); a stray byte means line noise.
   if (NOT_PRINTABLE.test(body)) return failure('framing', name, 'contains characters that are not printable ASCII', raw);
@@ -313,8 +318,9 @@ export function parseNmea(line: string, opts: ParseOptions = {}): ParseResult {
   } else if (!opts.allowMissingChecksum) {
     return failure('checksum', name, 'has no checksum (accept such sentences only if the source never sends one)', raw, 'checksum');
   }
+  if (proprietary) return failure('unsupported', name, `proprietary sentence ${name} is not used here`, raw);
   const formatter = name.slice(2);
-  if (!SUPPORTED.has(formatter)) return failure('unsupported', name, `${formatter} sentences are not used here`, raw);
+  if (startChar === 33 || !SUPPORTED.has(formatter)) return failure('unsupported', name, `${formatter} sentences are not used here`, raw);
   const fields = comma >= 0 ? body.slice(comma + 1).split(',') : [];
   try {
     return { ok: true, value: parseFields(formatter as SentenceType, fields, { talker: name.slice(0, 2), checksum, raw }) };

@@ -142,6 +142,22 @@ export class GpsTracker {
     };
   }
 
+  /**
+   * A hint when the stream looks wrong as a whole rather than a sentence at a time: garbage
+   * only (almost always the wrong baud rate), or sentences but never a position.
+   */
+  diagnosis(): string | null {
+    const { good, bad, ignored } = this.counts;
+    if (good === 0 && ignored === 0 && bad >= 10) {
+      return 'Nothing readable from the port: check the baud rate (NMEA 0183 is 4800 baud; high-speed NMEA and AIS feeds 38400).';
+    }
+    if (good + ignored >= 50 && this.counts.byType.GGA + this.counts.byType.RMC === 0) {
+      return 'The device sends NMEA but no position (GGA or RMC): is this the GPS, or a gyro or echo sounder on the same line?';
+    }
+    if (good >= 20 && !this.pos) return 'The GPS reports no fix yet (fix quality 0 or status V): it may still be acquiring satellites.';
+    return null;
+  }
+
   /** Epoch ms of the current fix as the receiver stated it (null without a time). */
   fixTimeMs(): number | null {
     return this.pos?.timeMs ?? null;

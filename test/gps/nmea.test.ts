@@ -173,6 +173,12 @@ describe('framing', () => {
   it('marks well-formed sentences of other types as unsupported, not as errors in the data', () => {
     // NOAA PSL PISTON 2019 / R/V Sally Ride log.
     expect(err('$GPZDA,195959.00,16,09,2019,00,00*6A')).toMatchObject({ kind: 'unsupported', sentence: 'GPZDA' });
+    // Proprietary ($P...) and encapsulated (!, AIS) sentences: invented bodies, checksums computed here.
+    expect(err(withChecksum('PUBX,00,120000.00,8230.0000,N'))).toMatchObject({ kind: 'unsupported', sentence: 'PUBX' });
+    expect(err(withChecksum('PGRME,15.0,M,45.0,M,25.0,M'))).toMatchObject({ kind: 'unsupported', sentence: 'PGRME' });
+    expect(err('!' + withChecksum('AIVDM,1,1,,A,13u?etPv2;0n:dDPwUM1U1Cb069D,0').slice(1))).toMatchObject({ kind: 'unsupported', sentence: 'AIVDM' });
+    // ... but their checksum is still checked.
+    expect(err('!AIVDM,1,1,,A,13u?etPv2;0n:dDPwUM1U1Cb069D,0*00')).toMatchObject({ kind: 'checksum' });
   });
 });
 

@@ -122,6 +122,21 @@ describe('GPS tracker', () => {
     expect(t.fix(t0)?.headingDeg).toBe(98);
   });
 
+  it('says when the stream as a whole looks wrong', () => {
+    const garbage = new GpsTracker();
+    // What 4800-baud NMEA looks like read at 38400: framing noise.
+    for (let i = 0; i < 12; i++) garbage.acceptLine('\u00f8\u00e0x\u00fe', t0);
+    expect(garbage.diagnosis()).toMatch(/check the baud rate/);
+    const gyroOnly = new GpsTracker();
+    for (let i = 0; i < 50; i++) gyroOnly.acceptLine(withChecksum('HEHDT,98.0,T'), t0);
+    expect(gyroOnly.diagnosis()).toMatch(/no position/);
+    const noFix = new GpsTracker();
+    for (let i = 0; i < 20; i++) noFix.acceptLine(withChecksum('GPGGA,120000,,,,,0,00,,,,,,,'), t0);
+    expect(noFix.diagnosis()).toMatch(/no fix yet/);
+    noFix.acceptLine(withChecksum('GPGGA,120000,8230.000,N,01515.000,E,1,09,0.9,10.0,M,30.0,M,,'), t0);
+    expect(noFix.diagnosis()).toBeNull();
+  });
+
   it('dates a GGA time of day from the last RMC, or from the clock nearest to it', () => {
     expect(fixEpochMs(3600, { year: 2026, month: 3, day: 9 }, 0)).toBe(Date.UTC(2026, 2, 9, 1));
     // Heard at 00:00:02 on 10 March, stamped 23:59:59: belongs to 9 March.

@@ -109,8 +109,17 @@ describe('CSV track import', () => {
     ]);
     expect(r.bad.map((b) => b.line)).toEqual([5, 6, 7, 8]);
     expect(r.bad[1]!.reason).toBe('time "noon" is neither ISO 8601 nor epoch seconds or milliseconds');
-    expect(r.bad[0]!.reason).toMatch(/decimal degrees expected/);
+    // Common practice: a decimal comma is the usual slip from a spreadsheet set to a European locale.
+    expect(r.bad[0]!.reason).toBe('latitude "82,002": use a point, not a comma, for decimals');
+    expect(r.bad[2]!.reason).toBe('longitude is empty');
     expect(r.counts).toEqual({ records: 7, imported: 3, bad: 4, skipped: 1, duplicates: 0 });
+  });
+
+  it('reads positions in the notations the domain parser knows, and catches a decimal comma in a comma-separated file', async () => {
+    const text = `time,lat,lon\n2026-03-09T12:00:00Z,82°30.5'N,015 15.0 E\n2026-03-09T12:01:00Z,82,002,15\n2026-03-09T12:02:00Z,N 82 31.0,E 15 16.0\n`;
+    const r = await importCsvTrack(text, { cruiseId: 'c' });
+    expect(r.points.map((p) => [p.lat, p.lon])).toEqual([[82 + 30.5 / 60, 15.25], [82 + 31 / 60, 15 + 16 / 60]]);
+    expect(r.bad).toEqual([{ line: 3, reason: 'row has 4 fields, the header has 3 (a decimal comma, or a missing separator?)' }]);
   });
 
   it('reports a header without the needed columns as the one bad line', async () => {

@@ -1,3 +1,4 @@
+import { CruiseSetup } from './CruiseSetup';
 import { StoragePanel } from './StoragePanel';
 
 export function SettingsScreen() {
@@ -5,6 +6,7 @@ export function SettingsScreen() {
     <section className="screen" aria-labelledby="settings-title">
       <h2 id="settings-title">Settings</h2>
       <p>Settings: cruise, vessel, observers, storage and display.</p>
+      <CruiseSetup />
       <StoragePanel />
     </section>
   );

@@ -1,0 +1,157 @@
+// Domain data (observations, track points) turned into the GeoJSON the map draws. Pure: no
+// MapLibre, no DOM, so every rule here is unit-tested in Node.
+import type { Feature, FeatureCollection, LineString, MultiLineString, Point, Position } from 'geojson';
+import type { Observation, Observer, TrackPoint } from '../../domain/model';
+import { band, bandOfObservation, hexColour, inMarginalIceZone, type BandKey } from './concentrationBands';
+import { beyondMercator, mizFeatures, pieceCoords, range, seamPieces, type TrackArrays } from './trackLevels';
+
+export interface ObservationProps {
+  /** The observation id, promoted to the feature id for feature state (selection). */
+  id: string;
+  band: BandKey;
+  colour: string;
+  /** Milliseconds since 1970, for time filters. */
+  t: number;
+  observerId: string;
+  initials: string;
+  /** Egg code image key, or empty when there is no egg code to draw. */
+  egg: string;
+  /** Poleward of the Mercator limit: drawn by the polar overlay, not by the map's layers. */
+  polar: boolean;
+}
+
+export interface BuildOptions {
+  observers?: readonly Observer[];
+  /** The egg code image key of an observation ('' for none); by default `egg:<id>`, drawn on demand. */
+  eggKey?: (o: Observation) => string;
+}
+
+function timeMs(iso: string): number {
+  return Date.parse(iso);
+}
+
+/** Observations with a position, as points; deleted ones are left out. */
+export function observationFeatures(observations: readonly Observation[], opts: BuildOptions = {}): FeatureCollection<Point, ObservationProps> {
+  const initials = new Map((opts.observers ?? []).map((o) => [o.id, o.initials]));
+  const features: Feature<Point, ObservationProps>[] = [];
+  for (const o of observations) {
+    if (o.deleted || !o.position) continue;
+    const key = bandOfObservation(o);
+    features.push({
+      type: 'Feature',
+      geometry: { type: 'Point', coordinates: [o.position.lon, o.position.lat] },
+      properties: {
+        id: o.id,
+        band: key,
+        colour: hexColour(band(key).rgb),
+        t: timeMs(o.time),
+        observerId: o.observerId,
+        initials: initials.get(o.observerId) ?? '',
+        egg: opts.eggKey ? opts.eggKey(o) : `egg:${o.id}`,
+        polar: beyondMercator(o.position.lat),
+      },
+    });
+  }
+  return { type: 'FeatureCollection', features };
+}
+
+/** Track points sorted by time (the store keeps them so; imports may not). */
+export function sortedTrack(track: readonly TrackPoint[]): TrackPoint[] {
+  const sorted = [...track];
+  if (sorted.some((p, i) => i > 0 && timeMs((sorted[i - 1] as TrackPoint).time) > timeMs(p.time))) {
+    sorted.sort((a, b) => timeMs(a.time) - timeMs(b.time));
+  }
+  return sorted;
+}
+
+/**
+ * A line of positions cut where it crosses the antimeridian, with the crossing point
+ * interpolated on both sides, so every piece stays inside -180..180 however often the ship
+ * crosses 180 degrees or circles a pole.
+ */
+export function splitAtAntimeridian(points: readonly Position[]): Position[][] {
+  const line = { lon: Float64Array.from(points, (p) => p[0] as number), lat: Float64Array.from(points, (p) => p[1] as number) };
+  return seamPieces(line.lon)
+    .map((p) => pieceCoords(line, p, range(p[0], p[1])))
+    .filter((c) => c.length >= 2);
+}
+
+export function trackFeature(track: readonly TrackPoint[]): Feature<MultiLineString> {
+  const coords = sortedTrack(track).map((p) => [p.lon, p.lat]);
+  return { type: 'Feature', properties: {}, geometry: { type: 'MultiLineString', coordinates: splitAtAntimeridian(coords) } };
+}
+
+/** The track as typed arrays in time order, as the track worker takes it. */
+export function trackArrays(track: readonly TrackPoint[]): TrackArrays {
+  const sorted = sortedTrack(track);
+  return {
+    t: Float64Array.from(sorted, (p) => timeMs(p.time)),
+    lon: Float64Array.from(sorted, (p) => p.lon),
+    lat: Float64Array.from(sorted, (p) => p.lat),
+  };
+}
+
+/** Observation times (ascending) and whether each is in the marginal ice zone. */
+export function observationZones(observations: readonly Observation[]): { t: Float64Array; miz: Uint8Array } {
+  const obs = observations
+    .filter((o) => !o.deleted)
+    .map((o) => ({ t: timeMs(o.time), miz: inMarginalIceZone(o.totalConcentration) ? 1 : 0 }))
+    .sort((a, b) => a.t - b.t);
+  return { t: Float64Array.from(obs, (o) => o.t), miz: Uint8Array.from(obs, (o) => o.miz) };
+}
+
+/**
+ * Stretches of the track in the marginal ice zone. Each track point takes the state of the
+ * observation nearest to it in time, if one lies within `maxGapMs` (else the ice there is
+ * unknown and no stretch is drawn); runs of points in the zone become the stretches.
+ */
+export function marginalIceZoneStretches(
+  track: readonly TrackPoint[],
+  observations: readonly Observation[],
+  maxGapMs: number,
+): FeatureCollection<MultiLineString> {
+  const zones = observationZones(observations);
+  return mizFeatures(trackArrays(track), zones.t, zones.miz, maxGapMs);
+}
+
+/** Initial bearing from one position to another, degrees true (spherical, good to a fraction of a degree over a few km). */
+export function initialBearing(from: Position, to: Position): number {
+  const rad = Math.PI / 180;
+  const f1 = (from[1] as number) * rad;
+  const f2 = (to[1] as number) * rad;
+  const dl = ((to[0] as number) - (from[0] as number)) * rad;
+  const y = Math.sin(dl) * Math.cos(f2);
+  const x = Math.cos(f1) * Math.sin(f2) - Math.sin(f1) * Math.cos(f2) * Math.cos(dl);
+  return ((Math.atan2(y, x) / rad) % 360 + 360) % 360;
+}
+
+export interface ShipProps {
+  /** Heading (or course over ground) in degrees true; -1 when unknown. */
+  heading: number;
+  t: number;
+}
+
+/**
+ * The ship's latest position: the later of the last track point and the last observation with
+ * a position. Heading from the fix's heading, else its course over ground, else the bearing
+ * from the previous track point.
+ */
+export function shipFeature(track: readonly TrackPoint[], observations: readonly Observation[]): Feature<Point, ShipProps> | null {
+  const points = sortedTrack(track);
+  const last = points[points.length - 1];
+  let lastObs: Observation | undefined;
+  for (const o of observations) if (!o.deleted && o.position && (!lastObs || timeMs(o.time) > timeMs(lastObs.time))) lastObs = o;
+  if (last && (!lastObs || timeMs(last.time) >= timeMs(lastObs.time))) {
+    const prev = points[points.length - 2];
+    const heading = last.headingDeg ?? last.cogDeg ?? (prev ? initialBearing([prev.lon, prev.lat], [last.lon, last.lat]) : -1);
+    return { type: 'Feature', geometry: { type: 'Point', coordinates: [last.lon, last.lat] }, properties: { heading, t: timeMs(last.time) } };
+  }
+  if (lastObs?.position) {
+    return { type: 'Feature', geometry: { type: 'Point', coordinates: [lastObs.position.lon, lastObs.position.lat] }, properties: { heading: -1, t: timeMs(lastObs.time) } };
+  }
+  return null;
+}
+
+export function featureCollection<G extends LineString | MultiLineString | Point, P>(features: (Feature<G, P> | null)[]): FeatureCollection<G, P> {
+  return { type: 'FeatureCollection', features: features.filter((f): f is Feature<G, P> => f !== null) };
+}

@@ -1,0 +1,53 @@
+// A hook for the browser tests, hidden in production: it exists only when the page was opened
+// with `?map-debug`. It reads the map (screen positions, zoom, projection) and puts a test
+// cruise in only through the app's own path, the local store's public functions.
+import { addTrackPoints, createCruise, saveObservation, setActiveCruise } from '../../db';
+import type { Cruise, Observation, TrackPoint } from '../../domain/model';
+import type { MapController } from './mapController';
+
+export interface MapDebug {
+  project: (lon: number, lat: number) => { x: number; y: number };
+  zoom: () => number;
+  center: () => { lon: number; lat: number };
+  projection: () => string;
+  /** Every position the initial view frames. */
+  positions: () => (readonly [number, number])[];
+  jumpTo: (lon: number, lat: number, zoom: number) => void;
+  frame: () => void;
+  /** Stores a cruise with its observations and track and makes it the active one. */
+  loadCruise: (cruise: Cruise, observations: Observation[], track: TrackPoint[]) => Promise<void>;
+}
+
+declare global {
+  interface Window {
+    __floeMapDebug?: MapDebug;
+  }
+}
+
+export function installMapDebug(c: MapController): () => void {
+  if (typeof window === 'undefined' || !new URLSearchParams(window.location.search).has('map-debug')) return () => undefined;
+  window.__floeMapDebug = {
+    project: (lon, lat) => {
+      const p = c.map.project([lon, lat]);
+      return { x: p.x, y: p.y };
+    },
+    zoom: () => c.map.getZoom(),
+    center: () => {
+      const l = c.map.getCenter();
+      return { lon: l.lng, lat: l.lat };
+    },
+    projection: () => c.map.getProjection()?.type?.toString() ?? 'mercator',
+    positions: () => c.positions(),
+    jumpTo: (lon, lat, zoom) => c.map.jumpTo({ center: [lon, lat], zoom }),
+    frame: () => c.frame(),
+    loadCruise: async (cruise, observations, track) => {
+      const stored = await createCruise(cruise);
+      for (const o of observations) await saveObservation({ ...o, cruiseId: stored.id });
+      await addTrackPoints(track.map((p) => ({ ...p, cruiseId: stored.id })));
+      await setActiveCruise(stored.id);
+    },
+  };
+  return () => {
+    delete window.__floeMapDebug;
+  };
+}
