@@ -189,12 +189,21 @@ export function writeLogJson(file: LogFileV1): string[] {
 // encodeVersion for random observations.
 const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+)|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
 
+// Distinct matches are few (a key and one of a few dozen terms), so replacements are cached.
+const codedCache = new Map<string, string>();
+
+function codedReplacement(m: string, concKey?: string, concValue?: string, termKey?: string, termValue?: string): string {
+  let out = codedCache.get(m);
+  if (out === undefined) {
+    if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
+    else out = `${m},"${termKey}Sigrid3":"${termKey === 'floeSize' ? floeSizeCode(termValue as FloeSizeKey) : stageCode(termValue as StageKey)}"`;
+    if (codedCache.size < 10_000) codedCache.set(m, out);
+  }
+  return out;
+}
+
 function withCodes(json: string): string {
-  return json.replace(CODED_FIELD, (m: string, concKey?: string, concValue?: string, termKey?: string, termValue?: string) => {
-    if (concKey) return `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
-    const code = termKey === 'floeSize' ? floeSizeCode(termValue as FloeSizeKey) : stageCode(termValue as StageKey);
-    return `${m},"${termKey}Sigrid3":"${code}"`;
-  });
+  return json.replace(CODED_FIELD, codedReplacement);
 }
 
 /** One version of an observation as file JSON: the model's JSON with the codes beside the terms. */
@@ -203,26 +212,41 @@ export function versionJson(o: Observation): string {
 }
 
 /**
+ * Marks the boundary between two observations inside one JSON.stringify of a chunk: a string
+ * holding only NUL, written as `"\u0000"`. Between two objects of the array it reads
+ * `},"\u0000",{`, which nothing else in a log can produce (ids never hold NUL, and a NUL in a
+ * text value stands after a colon, not between objects), so the boundaries can be cut there.
+ */
+const BOUNDARY = '\u0000';
+const BOUNDARY_JSON = '},"\\u0000",{';
+
+/**
  * encodeLog and writeLogJson in one, for export: the same document (codes placed right after
- * their terms), without building a file object per observation or an array per track row.
+ * their terms), but each chunk of observations goes through one JSON.stringify (the engine's
+ * fast path) instead of one file object and one stringify per observation.
  */
 export function exportLogJson(bundle: LogBundle, opts: EncodeOptions = {}): string[] {
   const file = encodeLog({ ...bundle, observations: [], history: [], conflicts: [], track: [] }, opts);
   const history = groupById(bundle.history);
   const conflicts = groupById(bundle.conflicts);
   const observations = [...bundle.observations].sort((a, b) => byTime(a, b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const lines = observations.map((o) => {
-    let json = versionJson(o);
+  const entry = (o: Observation): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) => {
     const h = history.get(o.id);
     const c = conflicts.get(o.id);
-    if (h || c) {
-      json = json.slice(0, -1);
-      if (h) json += `,"history":[${[...h].sort((a, b) => a.revision - b.revision).map(versionJson).join(',')}]`;
-      if (c) json += `,"conflicts":[${[...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1)).map(versionJson).join(',')}]`;
-      json += '}';
+    if (!h && !c) return o;
+    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...o };
+    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision);
+    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1));
+    return out;
+  };
+  const observationLines = (start: number, end: number) => {
+    const items: unknown[] = [];
+    for (let i = start; i < end; i++) {
+      if (i > start) items.push(BOUNDARY);
+      items.push(entry(observations[i] as Observation));
     }
-    return json;
-  });
+    return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
+  };
   const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
-  return writeParts(file, lines.length, (start, end) => lines.slice(start, end).join(',\n    '), track.length, (i) => encodeTrackPoint(track[i] as TrackPoint));
+  return writeParts(file, observations.length, observationLines, track.length, (i) => encodeTrackPoint(track[i] as TrackPoint));
 }

@@ -4,7 +4,8 @@
 //   import: read + schema + rules + merge plan + one-transaction apply into an empty store,
 //           vs a bare bulkPut of the same records (same batches) into an empty store  target <= 2x
 // Both in Node; the store is fake-indexeddb, as in the database tests. Peak memory is printed.
-// FLOE_BENCH_SCALE (e.g. 0.1) shrinks the data for a quick try.
+// FLOE_BENCH_SCALE (e.g. 0.1) shrinks the data for a quick try; FLOE_BENCH_PART=export skips the
+// (slow, fake-indexeddb) import half.
 import 'fake-indexeddb/auto';
 import { closeFloeDb, getDb, openFloeDb, selectDatabase } from '../../../src/db';
 import { applyMergePlan, loadMergeTarget } from '../../../src/db/importPlan';
@@ -85,6 +86,7 @@ export const suite: BenchSuite = {
     rows.push(ratioRow('export log file vs JSON.stringify of the records (median)', median(exp), median(raw), 'ms', 1.5));
     rows.push(absoluteRow('log file size', text.length / 1e6, 'MB', 512));
 
+    if (process.env.FLOE_BENCH_PART === 'export') return rows;
     // Import vs a bare bulkPut, each into an empty store, twice, alternating.
     const imp: number[] = [];
     const put: number[] = [];
