@@ -22,6 +22,8 @@ export default defineConfig({
   worker: { format: 'es' },
   test: {
     reporters: ['default', ['json', { outputFile: 'test-results/unit.json' }]],
+    // Property tests over the database take seconds; a loaded 2-core machine must not time them out.
+    testTimeout: 30_000,
     projects: [
       {
         extends: true,

@@ -34,3 +34,5 @@ export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore
 export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';
+export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
+export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';

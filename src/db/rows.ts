@@ -12,6 +12,24 @@ export interface ObservationRevision {
   observation: Observation;
 }
 
+/**
+ * A copy of an observation with the same id and revision as a stored version but other content
+ * (two laptops edited the same revision). Both are kept; the copy waits here for a reviewer.
+ */
+export interface ConflictRecord {
+  /** `observationId:revision:` and a hash of the copy's content, so the same copy is kept once. */
+  id: string;
+  observationId: string;
+  cruiseId: string;
+  revision: number;
+  /** When an import found it, and from which file. */
+  detectedAt: IsoUtc;
+  source: string;
+  observation: Observation;
+  /** Set when a reviewer settled it: which version they kept. The copy itself stays. */
+  resolution?: { at: IsoUtc; by: string; kept: 'stored' | 'copy' };
+}
+
 export interface PhotoRecord {
   id: string;
   observationId: string;
@@ -48,6 +66,11 @@ export interface SettingValues {
   currentObserverId: string | null;
   /** Minutes before the hour at which the next-observation reminder shows. */
   reminderLeadMinutes: number;
+  /** The folder automatic backups go to (File System Access API), as the browser gave it. */
+  backupFolder: FileSystemDirectoryHandle | null;
+  /** When the last automatic backup was written, and the last export downloaded. */
+  lastBackupAt: IsoUtc | null;
+  lastExportAt: IsoUtc | null;
 }
 export type SettingKey = keyof SettingValues;
 

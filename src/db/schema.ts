@@ -33,6 +33,21 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       meta: 'key',
     },
   },
+  {
+    version: 2,
+    note: 'conflicts: copies of an observation that an import found with the same revision but other content, kept for review',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: '[cruiseId+time]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+    },
+  },
 ];
 
 export const LATEST_SCHEMA_VERSION = SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.version ?? 0;

@@ -1,8 +1,89 @@
+// The chief scientist's view of the whole cruise: summary, charts, latitude bands, watch
+// handovers, the quality-control list, and a printable report. Every figure comes from
+// src/domain/stats; this screen only lays them out.
+import { useId, useMemo, useState } from 'react';
+import type { Cruise, Observation, TrackPoint } from '../../domain/model';
+import { POLARIS_CAUTIONS, VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
+import { collectFindings, reviewCruise } from '../../domain/stats';
+import { BandTable } from './BandTable';
+import { FindingsPanel } from './FindingsPanel';
+import { HandoverTable } from './HandoverTable';
+import { ReviewCharts } from './ReviewCharts';
+import { SummaryCards } from './SummaryCards';
+import { useReviewCruise, useReviewObservations, useReviewTrack } from './reviewData';
+import './review.css';
+
 export function ReviewScreen() {
+  const cruise = useReviewCruise();
   return (
-    <section className="screen" aria-labelledby="review-title">
+    <section className="screen review-screen" aria-labelledby="review-title">
       <h2 id="review-title">Cruise review</h2>
-      <p>Cruise review: summary, charts, latitude bands and quality findings.</p>
+      {cruise === undefined && <p role="status">Opening the store…</p>}
+      {cruise === null && <p>No cruise yet. Start a cruise (or load the demo cruise) in the watch log, then come back here.</p>}
+      {cruise && <CruiseReviewLoader key={cruise.id} cruise={cruise} />}
     </section>
+  );
+}
+
+function CruiseReviewLoader({ cruise }: { cruise: Cruise }) {
+  const observations = useReviewObservations(cruise.id);
+  const track = useReviewTrack(cruise.id);
+  if (observations === undefined || track === undefined) return <p role="status">Reading the log of {cruise.name}…</p>;
+  if (observations.length === 0) return <p>{cruise.name} has no observations yet.</p>;
+  return <CruiseReview cruise={cruise} observations={observations} track={track} />;
+}
+
+export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; observations: Observation[]; track: TrackPoint[] }) {
+  const id = useId();
+  const [observerId, setObserverId] = useState('');
+  const review = useMemo(
+    () => reviewCruise({ cruise, observations, track, include: observerId ? (o) => o.observerId === observerId : undefined }),
+    [cruise, observations, track, observerId],
+  );
+  const findings = useMemo(() => collectFindings(observations, cruise), [observations, cruise]);
+  const byId = useMemo(() => new Map(observations.map((o) => [o.id, o])), [observations]);
+  const observerName = cruise.observers.find((o) => o.id === observerId)?.name;
+  return (
+    <div className="review-body">
+      <div className="review-heading">
+        <p className="review-cruise-name">
+          <strong>{cruise.name}</strong> · {cruise.vesselName} · ice class {VESSEL_ICE_CLASS_LABELS[cruise.iceClass]}
+        </p>
+        <p className="print-only muted">Report printed {new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC{observerName ? `, observations of ${observerName} only` : ''}.</p>
+        <div className="review-controls no-print">
+          <label htmlFor={`${id}-observer`}>Observer</label>
+          <select id={`${id}-observer`} value={observerId} onChange={(e) => setObserverId(e.target.value)}>
+            <option value="">All observers</option>
+            {cruise.observers.map((o) => (
+              <option key={o.id} value={o.id}>{o.name}</option>
+            ))}
+          </select>
+          <button type="button" className="button primary" onClick={() => window.print()}>
+            Print the report
+          </button>
+        </div>
+        {observerName && (
+          <p className="review-filter-note" role="status">
+            Figures for the observations of {observerName}; distance sailed is the whole cruise’s.
+          </p>
+        )}
+      </div>
+      <SummaryCards summary={review.summary} cruise={cruise} />
+      <ReviewCharts series={review.series} />
+      <BandTable table={review.bands} />
+      <HandoverTable table={review.handover} observers={cruise.observers} highlight={observerId || null} />
+      <FindingsPanel findings={findings} cruise={cruise} observations={byId} />
+      <section aria-labelledby="review-cautions-title" className="review-section review-cautions">
+        <h3 id="review-cautions-title">Cautions</h3>
+        <ul>
+          <li>The map and positions in this report are an overview of observed ice, not a navigation chart.</li>
+          {POLARIS_CAUTIONS.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+          <li>Thickness with ridges is an estimate from the sail height (keel and area ratios of Timco and Burden 1997).</li>
+          <li>Concentrations, stages and thicknesses are visual estimates from the bridge.</li>
+        </ul>
+      </section>
+    </div>
   );
 }

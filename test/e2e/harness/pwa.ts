@@ -103,9 +103,19 @@ export async function runAxe(page: Page): Promise<AxeFinding[]> {
   const hasAxe = await page.evaluate(() => 'axe' in window);
   if (!hasAxe) await page.evaluate(axeSource);
   return page.evaluate(async () => {
-    interface AxeResult { violations: Array<{ id: string; impact: string | null; help: string; nodes: Array<{ target: string[] }> }> }
+    interface AxeCheck { data?: { fgColor?: string; bgColor?: string; contrastRatio?: number } | null }
+    interface AxeResult { violations: Array<{ id: string; impact: string | null; help: string; nodes: Array<{ target: string[]; any: AxeCheck[] }> }> }
     const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<AxeResult> } }).axe;
     const result = await axe.run(document, { resultTypes: ['violations'] });
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, help: v.help, nodes: v.nodes.map((n) => n.target.join(' ')) }));
+    return result.violations.map((v) => ({
+      id: v.id,
+      impact: v.impact,
+      help: v.help,
+      // For contrast findings, the colours and ratio axe measured, so the fix is obvious.
+      nodes: v.nodes.map((n) => {
+        const d = n.any.find((c) => c.data?.contrastRatio !== undefined)?.data;
+        return n.target.join(' ') + (d ? ` [${d.fgColor} on ${d.bgColor}: ${d.contrastRatio}]` : '');
+      }),
+    }));
   });
 }

@@ -1,0 +1,48 @@
+// `convert FILE --to geojson|csv|ndjson|log -o OUT`: the same writers as the app's export.
+import { writeCsv } from '../../format/csv.ts';
+import { encodeLog, writeLogJson } from '../../format/encode.ts';
+import { writeGeoJson } from '../../format/geojson.ts';
+import { writeNdjson } from '../../format/ndjson.ts';
+import { writeArchive } from '../../format/archive.ts';
+import { parseOptions, stringOption } from '../args.ts';
+import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
+import { loadLog, printProblems, writeOut } from '../logFiles.ts';
+
+const TARGETS = ['geojson', 'csv', 'ndjson', 'log', 'zip'] as const;
+
+const usage = `Usage: npm run cli -- convert FILE --to ${TARGETS.join('|')} -o OUT [--include-deleted]
+
+  geojson   observations as points with flat properties, the track as a line (RFC 7946)
+  csv       one row per observation, a column group per ice category (RFC 4180)
+  ndjson    one flat observation record per line
+  log       the log in the current format version (reads older versions by migration)
+  zip       the log and its photos as an archive
+
+  --include-deleted   keep deleted observations in geojson, csv and ndjson (column "deleted")`;
+
+export const convertCommand: Command = {
+  name: 'convert',
+  summary: 'convert a log file to GeoJSON, CSV, NDJSON, the current log version or a zip',
+  usage,
+  run(args: string[], io: CliIO): number {
+    const { values, positionals } = parseOptions(args, { to: { type: 'string' }, out: { type: 'string', short: 'o' }, 'include-deleted': { type: 'boolean' } }, true);
+    if (positionals.length !== 1) throw new UsageError('give exactly one FILE');
+    const to = stringOption(values, 'to', true);
+    const out = stringOption(values, 'out', true);
+    if (!(TARGETS as readonly string[]).includes(to)) throw new UsageError(`--to "${to}" is not one of ${TARGETS.join(', ')}`);
+    const log = loadLog(positionals[0] as string);
+    if (!log.ok) {
+      printProblems(io, log);
+      return EXIT_FAILURE;
+    }
+    const opts = { includeDeleted: values['include-deleted'] === true };
+    const b = log.bundle;
+    if (to === 'geojson') writeOut(out, writeGeoJson(b, opts));
+    else if (to === 'csv') writeOut(out, writeCsv(b, opts));
+    else if (to === 'ndjson') writeOut(out, writeNdjson(b, opts));
+    else if (to === 'zip') writeOut(out, writeArchive(b, log.photos));
+    else writeOut(out, writeLogJson(encodeLog(b)));
+    io.stdout(`wrote ${out} (${to})`);
+    return EXIT_OK;
+  },
+};

@@ -1,0 +1,174 @@
+// Applies an import's merge plan (src/format/merge.ts) to the store in ONE transaction: the
+// cruise, current observations, history rows, conflict copies, track points and photos are
+// written together or not at all. Before writing it checks that nothing the plan was made
+// against has changed since (another tab saved an edit while the preview was open).
+import { Dexie } from 'dexie';
+import type { Observation } from '../domain/model';
+import { canonicalJson, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
+import type { PhotoBytes } from '../format/types';
+import { getDb, writableDb } from './connection';
+import { FloeDbError, mapWriteError } from './errors';
+import type { ConflictRecord, ObservationRevision, PhotoRecord } from './rows';
+import { nowIso } from './validate';
+
+/** The store changed between the preview and the apply; nothing was written. */
+export class StaleImportError extends FloeDbError {
+  readonly kind = 'conflict' as const;
+  constructor(observationId: string) {
+    super(`Observation ${observationId} changed since the preview was made. Nothing was imported; open the file again for a fresh preview.`);
+    this.name = 'StaleImportError';
+  }
+}
+
+/** A short stable hash (two 32-bit FNV-1a lanes) of a copy's content, for its conflict id. */
+export function contentHash(text: string): string {
+  let a = 0x811c9dc5;
+  let b = 0x01000193 ^ text.length;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    a = Math.imul(a ^ c, 0x01000193);
+    b = Math.imul(b ^ c, 0x5bd1e995) ^ (b >>> 15);
+  }
+  return (a >>> 0).toString(16).padStart(8, '0') + (b >>> 0).toString(16).padStart(8, '0');
+}
+
+export function conflictId(o: Observation): string {
+  return `${o.id}:${o.revision}:${contentHash(canonicalJson(o))}`;
+}
+
+/** What is stored for a cruise, in the form the merge planner asks for. */
+export async function loadMergeTarget(cruiseId: string): Promise<MergeTarget> {
+  const db = getDb();
+  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+    const cruise = (await db.cruises.get(cruiseId)) ?? null;
+    const observations = await db.observations.where('cruiseId').equals(cruiseId).toArray();
+    const ids = observations.map((o) => o.id);
+    const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
+    const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();
+    const trackKeys = await db.trackPoints.where('[cruiseId+time]').between([cruiseId, Dexie.minKey], [cruiseId, Dexie.maxKey], true, true).primaryKeys();
+    const photoIds = await db.photos.where('cruiseId').equals(cruiseId).primaryKeys();
+    const others = new Map<string, Observation[]>();
+    for (const v of [...revisions.map((r) => r.observation), ...conflicts.map((c) => c.observation)]) {
+      const l = others.get(v.id);
+      if (l) l.push(v);
+      else others.set(v.id, [v]);
+    }
+    const current = new Map(observations.map((o) => [o.id, o]));
+    const times = new Set(trackKeys.map((k) => k[1]));
+    const photos = new Set(photoIds);
+    return {
+      cruise,
+      versions: (id: string): StoredVersions | undefined => {
+        const c = current.get(id);
+        return c ? { current: c, others: others.get(id) ?? [] } : undefined;
+      },
+      hasTrackTime: (t: string) => times.has(t),
+      hasPhoto: (id: string) => photos.has(id),
+    };
+  });
+}
+
+export interface ApplyOptions {
+  /** Photo bytes from an archive, by photo id. Photos without bytes are not stored. */
+  photos?: PhotoBytes;
+  /** The file name, recorded with conflict copies. */
+  source: string;
+}
+
+export interface ApplyResult {
+  observations: number;
+  history: number;
+  conflicts: number;
+  trackPoints: number;
+  photos: number;
+  /** Photos the file lists but does not contain (a plain JSON log): not stored. */
+  photosWithoutBytes: number;
+}
+
+const TRACK_CHUNK = 50_000;
+
+export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promise<ApplyResult> {
+  const db = await writableDb();
+  const at = nowIso();
+  const cruiseId = plan.cruise.value.id;
+  const photoRows: PhotoRecord[] = [];
+  let photosWithoutBytes = 0;
+  for (const p of plan.addPhotos) {
+    const bytes = opts.photos?.get(p.id);
+    if (!bytes) {
+      photosWithoutBytes++;
+      continue;
+    }
+    const row: PhotoRecord = {
+      id: p.id,
+      observationId: p.observationId,
+      cruiseId,
+      fileName: p.fileName,
+      mimeType: p.mediaType,
+      sizeBytes: p.byteLength,
+      addedAt: p.addedAt ?? at,
+      blob: new Blob([bytes as Uint8Array<ArrayBuffer>], { type: p.mediaType }),
+    };
+    if (p.takenAt !== undefined) row.takenAt = p.takenAt;
+    photoRows.push(row);
+  }
+  const revisionRows: ObservationRevision[] = plan.addHistory.map((o) => ({ observationId: o.id, revision: o.revision, supersededAt: at, observation: o }));
+  const conflictRows: ConflictRecord[] = plan.addConflicts.map((o) => ({
+    id: conflictId(o),
+    observationId: o.id,
+    cruiseId,
+    revision: o.revision,
+    detectedAt: at,
+    source: opts.source.slice(0, 200),
+    observation: o,
+  }));
+  try {
+    await db.transaction('rw', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+      const expected = new Map(plan.items.map((i) => [i.id, i.storedRevision]));
+      const ids = [...expected.keys()];
+      const now = await db.observations.bulkGet(ids);
+      now.forEach((o, k) => {
+        const id = ids[k] as string;
+        if ((o?.revision ?? null) !== expected.get(id)) throw new StaleImportError(id);
+      });
+      if (plan.cruise.action !== 'unchanged') await db.cruises.put(plan.cruise.value);
+      if (plan.putCurrent.length > 0) await db.observations.bulkPut(plan.putCurrent);
+      // bulkAdd: an existing history row is never replaced; a clash aborts the whole import.
+      if (revisionRows.length > 0) await db.revisions.bulkAdd(revisionRows);
+      if (conflictRows.length > 0) await db.conflicts.bulkPut(conflictRows);
+      for (let i = 0; i < plan.addTrack.length; i += TRACK_CHUNK) await db.trackPoints.bulkPut(plan.addTrack.slice(i, i + TRACK_CHUNK));
+      if (photoRows.length > 0) await db.photos.bulkAdd(photoRows);
+    });
+  } catch (err) {
+    if (err instanceof StaleImportError) throw err;
+    throw mapWriteError(err, 'the import');
+  }
+  return {
+    observations: plan.putCurrent.length,
+    history: revisionRows.length,
+    conflicts: conflictRows.length,
+    trackPoints: plan.addTrack.length,
+    photos: photoRows.length,
+    photosWithoutBytes,
+  };
+}
+
+/** Conflict copies of a cruise, open ones first. */
+export async function listConflicts(cruiseId: string): Promise<ConflictRecord[]> {
+  const rows = await getDb().conflicts.where('cruiseId').equals(cruiseId).toArray();
+  return rows.sort((a, b) => Number(a.resolution !== undefined) - Number(b.resolution !== undefined) || (a.observation.time < b.observation.time ? -1 : 1));
+}
+
+/** Records a reviewer's decision. The copy stays stored either way; nothing is lost. */
+export async function markConflictResolved(id: string, kept: 'stored' | 'copy', by: string): Promise<void> {
+  const db = await writableDb();
+  try {
+    await db.transaction('rw', db.conflicts, async () => {
+      const row = await db.conflicts.get(id);
+      if (!row) return;
+      await db.conflicts.put({ ...row, resolution: { at: nowIso(), by, kept } });
+    });
+  } catch (err) {
+    throw mapWriteError(err, 'the conflict decision');
+  }
+}

@@ -1,0 +1,41 @@
+// Builds each export file of a cruise from the store, with the format's writers.
+import { readCruiseExport } from '../../db';
+import { writeArchive } from '../../format/archive';
+import { writeCsv } from '../../format/csv';
+import { encodeLog, writeLogJson } from '../../format/encode';
+import { writeGeoJson } from '../../format/geojson';
+import { writeNdjson } from '../../format/ndjson';
+import { MEDIA_TYPE } from '../../format/types';
+import { slug, stamp } from './download';
+
+export const EXPORT_KINDS = ['log', 'geojson', 'csv', 'ndjson', 'zip'] as const;
+export type ExportKind = (typeof EXPORT_KINDS)[number];
+
+export const EXPORT_LABELS: Record<ExportKind, { label: string; hint: string }> = {
+  log: { label: 'Full log (JSON)', hint: 'Everything, with revisions and conflict copies; readable by Floe Ledger and any JSON tool.' },
+  geojson: { label: 'GeoJSON', hint: 'Observations as points, the track as a line, for GIS.' },
+  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice category, for spreadsheets and R.' },
+  ndjson: { label: 'NDJSON', hint: 'One observation record per line, for streaming tools.' },
+  zip: { label: 'Archive with photos (zip)', hint: 'The full log and every photo, to hand over or archive.' },
+};
+
+const EXT: Record<ExportKind, string> = { log: 'floe-log.json', geojson: 'geojson', csv: 'csv', ndjson: 'ndjson', zip: 'floe-log.zip' };
+const TYPE: Record<ExportKind, string> = {
+  log: MEDIA_TYPE,
+  geojson: 'application/geo+json',
+  csv: 'text/csv;charset=utf-8',
+  ndjson: 'application/x-ndjson',
+  zip: 'application/zip',
+};
+
+export async function buildExport(cruiseId: string, kind: ExportKind, opts: { includeDeleted?: boolean } = {}): Promise<{ blob: Blob; fileName: string }> {
+  const { bundle, photos } = await readCruiseExport(cruiseId, { photoBytes: kind === 'zip' });
+  const flat = { includeDeleted: opts.includeDeleted === true };
+  let parts: BlobPart[];
+  if (kind === 'log') parts = writeLogJson(encodeLog(bundle));
+  else if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
+  else if (kind === 'csv') parts = writeCsv(bundle, flat);
+  else if (kind === 'ndjson') parts = writeNdjson(bundle, flat);
+  else parts = [writeArchive(bundle, photos) as Uint8Array<ArrayBuffer>];
+  return { blob: new Blob(parts, { type: TYPE[kind] }), fileName: `${slug(bundle.cruise.name)}-${stamp()}.${EXT[kind]}` };
+}

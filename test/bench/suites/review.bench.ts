@@ -1,0 +1,60 @@
+// The cruise review over 50,000 observations (issue 7: all of the summary in under 200 ms), against
+// a single bare pass over the same array measured in the same run.
+import { makeDemoCruise } from '../../../src/domain/demo.ts';
+import type { Observation } from '../../../src/domain/model.ts';
+import { reviewCruise } from '../../../src/domain/stats.ts';
+import { absoluteRow, compare, ratioRow, type BenchSuite } from '../bench-kit';
+
+const N = 50_000;
+const HOUR_MS = 3_600_000;
+
+/** The demo cruise repeated back to back (each copy shifted by its length) up to N observations. */
+function bigLog(): { observations: Observation[]; cruise: ReturnType<typeof makeDemoCruise>['cruise'] } {
+  const demo = makeDemoCruise();
+  const first = Date.parse(demo.observations[0]!.time);
+  const last = Date.parse(demo.observations.at(-1)!.time);
+  const shift = last - first + HOUR_MS;
+  const out: Observation[] = [];
+  for (let copy = 0; out.length < N; copy++) {
+    for (const o of demo.observations) {
+      if (out.length >= N) break;
+      const t = new Date(Date.parse(o.time) + copy * shift).toISOString().replace('.000Z', 'Z');
+      out.push({ ...o, id: `${o.id}-${copy}`, time: t });
+    }
+  }
+  return { observations: out, cruise: demo.cruise };
+}
+
+/** The least any summary must do: read every observation's time, concentration and categories. */
+function singlePass(observations: readonly Observation[]): number {
+  let acc = 0;
+  for (const o of observations) {
+    acc += Date.parse(o.time) % 7;
+    acc += o.totalConcentration ?? 0;
+    for (const c of o.categories) acc += c.partialConcentration * (c.thicknessCm ?? 0);
+  }
+  return acc;
+}
+
+export const suite: BenchSuite = {
+  name: 'cruise review',
+  async run() {
+    const { observations, cruise } = bigLog();
+    let sink = 0;
+    const { subject, baseline } = await compare(
+      () => {
+        sink += reviewCruise({ cruise, observations }).summary.observedHours;
+      },
+      () => {
+        sink += singlePass(observations);
+      },
+      9,
+    );
+    if (!Number.isFinite(sink)) throw new Error('no result');
+    console.log(`review: ${N} observations: summary ${subject.toFixed(1)} ms (target 200 ms), single pass ${baseline.toFixed(1)} ms, ratio ${(subject / baseline).toFixed(1)}x`);
+    return [
+      absoluteRow(`review summary of ${N} observations (median)`, subject, 'ms', 200),
+      ratioRow(`review summary vs a single pass over the ${N}`, subject, baseline, 'ms', 30),
+    ];
+  },
+};

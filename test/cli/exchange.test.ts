@@ -1,0 +1,150 @@
+// The exchange commands: demo, validate, summary, convert, merge. Most run in-process through
+// runCli; the exit codes are also checked on a spawned process through the bin shim.
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import Papa from 'papaparse';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { CliIO } from '../../src/cli/command.ts';
+import { runCli } from '../../src/cli/main.ts';
+import { makeDemoCruise } from '../../src/domain/demo.ts';
+import { alongTrackDistanceM } from '../../src/domain/geodesy.ts';
+import { readLogText } from '../../src/format/read.ts';
+
+const ROOT = resolve(import.meta.dirname, '../..');
+const dir = mkdtempSync(join(tmpdir(), 'floe-cli-'));
+const demoFile = join(dir, 'demo.json');
+
+async function run(...argv: string[]) {
+  const out: string[] = [];
+  const err: string[] = [];
+  const io: CliIO = { stdout: (l) => out.push(l), stderr: (l) => err.push(l) };
+  const code = await runCli(argv, io);
+  return { code, out, err };
+}
+
+beforeAll(async () => {
+  expect((await run('demo', '-o', demoFile)).code).toBe(0);
+});
+
+describe('demo', () => {
+  it('writes the invented demo cruise as a valid log, reproducibly', async () => {
+    const demo = makeDemoCruise(1);
+    const r = readLogText(readFileSync(demoFile, 'utf8'));
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    expect(r.bundle.cruise.vesselName).toBe(demo.cruise.vesselName);
+    expect(r.bundle.observations).toHaveLength(demo.observations.length);
+    expect(r.bundle.track).toHaveLength(demo.track.length);
+    const again = join(dir, 'demo-again.json');
+    await run('demo', '-o', again);
+    expect(readFileSync(again, 'utf8')).toBe(readFileSync(demoFile, 'utf8'));
+  });
+  it('refuses a bad seed with exit 2', async () => {
+    const r = await run('demo', '-o', join(dir, 'x.json'), '--seed', 'abc');
+    expect(r.code).toBe(2);
+    expect(r.err[0]).toContain('--seed "abc" is not a whole number');
+  });
+});
+
+describe('validate', () => {
+  it('exit 0 for valid files', async () => {
+    const r = await run('validate', demoFile, resolve(ROOT, 'test/format/fixtures/log-v0.json'));
+    expect(r.code).toBe(0);
+    expect(r.out[0]).toMatch(/demo\.json: valid: \d+ observations/);
+    expect(r.out.some((l) => l.includes('format version 0, read by migration'))).toBe(true);
+  });
+  it('exit 1 and one message per problem with its place', async () => {
+    const bad = join(dir, 'bad.json');
+    const text = readFileSync(demoFile, 'utf8').replace(/"totalConcentration":(\d+)/, '"totalConcentration":12').replace(/"lat":[\d.]+/, '"lat":"north"');
+    writeFileSync(bad, text);
+    const r = await run('validate', bad, demoFile, join(dir, 'missing.json'));
+    expect(r.code).toBe(1);
+    expect(r.err, r.err.join("\n")).toHaveLength(3);
+    expect(r.err[0]).toMatch(/^.*bad\.json: line \d+, column \d+: \$\.observations\[0\]\.position\.lat: must be a number, not "north"$/);
+    expect(r.err[1]).toMatch(/bad\.json: line \d+, column \d+: \$\.observations\[0\]\.totalConcentration: 12 is above the largest allowed value 10$/);
+    expect(r.err[2]).toMatch(/missing\.json: \$: cannot be read/);
+  });
+});
+
+describe('summary', () => {
+  it('prints the cruise statistics, and --json an object computed by the domain', async () => {
+    const text = await run('summary', demoFile);
+    expect(text.code).toBe(0);
+    expect(text.out.join('\n')).toContain('RV Frostwren');
+    const r = await run('summary', demoFile, '--json');
+    const s = JSON.parse(r.out.at(-1) as string) as { observations: { total: number }; track: { distanceNm: number }; meanTotalConcentration: number; observers: unknown[]; timeSpan: { first: string } };
+    const demo = makeDemoCruise(1);
+    expect(s.observations.total).toBe(demo.observations.length);
+    expect(s.observers).toHaveLength(demo.cruise.observers.length);
+    expect(s.timeSpan.first).toBe(demo.observations[0]?.time);
+    expect(s.track.distanceNm).toBeCloseTo(alongTrackDistanceM(demo.track) / 1852, 1);
+    const mean = demo.observations.reduce((a, o) => a + (o.totalConcentration ?? 0), 0) / demo.observations.length;
+    expect(s.meanTotalConcentration).toBeCloseTo(mean, 2);
+  });
+});
+
+describe('convert', () => {
+  it('to csv, geojson and ndjson', async () => {
+    for (const to of ['csv', 'geojson', 'ndjson']) expect((await run('convert', demoFile, '--to', to, '-o', join(dir, `demo.${to}`))).code).toBe(0);
+    const n = makeDemoCruise(1).observations.length;
+    const csv = Papa.parse<Record<string, string>>(readFileSync(join(dir, 'demo.csv'), 'utf8'), { header: true, skipEmptyLines: true });
+    expect(csv.data).toHaveLength(n);
+    const gj = JSON.parse(readFileSync(join(dir, 'demo.geojson'), 'utf8')) as { features: { geometry: { type: string } | null }[] };
+    expect(gj.features.filter((f) => f.geometry?.type === 'Point')).toHaveLength(n);
+    expect(gj.features.at(-1)?.geometry?.type).toMatch(/LineString$/);
+    expect(readFileSync(join(dir, 'demo.ndjson'), 'utf8').trim().split('\n')).toHaveLength(n);
+  });
+  it('refuses an unknown target with exit 2', async () => {
+    const r = await run('convert', demoFile, '--to', 'kml', '-o', join(dir, 'x'));
+    expect(r.code).toBe(2);
+    expect(r.err[0]).toContain('--to "kml" is not one of');
+  });
+});
+
+describe('merge', () => {
+  it('merges by the app rules: identical adds nothing, a newer revision is applied, a conflict is kept', async () => {
+    const doc = JSON.parse(readFileSync(demoFile, 'utf8')) as { observations: Record<string, unknown>[] };
+    const o0 = doc.observations[0] as Record<string, unknown>;
+    const o1 = doc.observations[1] as Record<string, unknown>;
+    doc.observations[0] = { ...o0, revision: 2, notes: 'edited on laptop B', history: [o0] };
+    doc.observations[1] = { ...o1, notes: 'same revision, other text' };
+    const b = join(dir, 'laptop-b.json');
+    writeFileSync(b, JSON.stringify(doc));
+    const out = join(dir, 'merged.json');
+    const r = await run('merge', demoFile, b, demoFile, '-o', out);
+    expect(r.code).toBe(0);
+    expect(r.out[1]).toMatch(/laptop-b\.json: 0 new, \d+ identical, 1 newer, 0 older, 1 conflicting/);
+    expect(r.out[2]).toMatch(/demo\.json: 0 new, \d+ identical, 0 newer, 0 older, 0 conflicting; 0 new track points/);
+    const merged = readLogText(readFileSync(out, 'utf8'));
+    expect(merged.ok).toBe(true);
+    if (!merged.ok) return;
+    expect(merged.bundle.observations.find((o) => o.id === o0.id)?.notes).toBe('edited on laptop B');
+    expect(merged.bundle.history.map((h) => h.id)).toEqual([o0.id]);
+    expect(merged.bundle.conflicts.map((c) => c.notes)).toEqual(['same revision, other text']);
+  });
+  it('writes nothing when a file is rejected or of another cruise', async () => {
+    const other = join(dir, 'other.json');
+    await run('demo', '-o', other, '--seed', '2');
+    const out = join(dir, 'never.json');
+    const r = await run('merge', demoFile, other, '-o', out);
+    expect(r.code).toBe(1);
+    expect(r.err[0]).toContain('not of "FW26-03');
+    expect(() => readFileSync(out)).toThrow();
+  });
+});
+
+describe('the bin shim, spawned', () => {
+  const bin = resolve(ROOT, 'bin/floe-ledger.mjs');
+  it('exit codes 0, 1 and 2', () => {
+    const ok = spawnSync(process.execPath, [bin, 'validate', demoFile, '--quiet'], { encoding: 'utf8' });
+    expect(ok.status).toBe(0);
+    writeFileSync(join(dir, 'truncated.json'), readFileSync(demoFile, 'utf8').slice(0, 5000));
+    const bad = spawnSync(process.execPath, [bin, 'validate', join(dir, 'truncated.json')], { encoding: 'utf8' });
+    expect(bad.status).toBe(1);
+    expect(bad.stderr).toMatch(/truncated\.json: line \d+, column \d+: \$: .*truncated/);
+    const usage = spawnSync(process.execPath, [bin, 'validate'], { encoding: 'utf8' });
+    expect(usage.status).toBe(2);
+  }, 60_000);
+});

@@ -1,0 +1,101 @@
+// The cruise review in Chromium: load the demo cruise through the watch log's button, open the
+// review, check the figures shown against the domain functions computed here on the same demo
+// data (makeDemoCruise), mark a finding reviewed, and print the report to PDF.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { openApp, type AppSession } from './harness/browser';
+import { showScreen } from './harness/screens';
+import { makeDemoCruise } from '../../src/domain/demo';
+import { collectFindings, latitudeBandLabel, reviewCruise } from '../../src/domain/stats';
+
+const demo = makeDemoCruise();
+const expected = reviewCruise({ cruise: demo.cruise, observations: demo.observations, track: demo.track });
+const findings = collectFindings(demo.observations, demo.cruise);
+
+describe('cruise review of the demo cruise', () => {
+  let app: AppSession;
+  beforeAll(async () => {
+    app = await openApp();
+    const { page } = app;
+    await page.getByRole('button', { name: 'Load the demo cruise' }).click();
+    // The log shows the cruise once the demo is stored and active.
+    await page.getByRole('heading', { name: 'Watch log' }).waitFor({ timeout: 60_000 });
+    await page.getByText(demo.cruise.name).first().waitFor({ timeout: 60_000 });
+    await showScreen(page, 'Review');
+    await page.getByTestId('value-observations').waitFor({ timeout: 30_000 });
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('shows the summary the domain computes', async () => {
+    const { page } = app;
+    const s = expected.summary;
+    const text = async (id: string): Promise<string> => (await page.getByTestId(`value-${id}`).innerText()).trim();
+    expect(await text('observations')).toBe(String(s.observations));
+    expect(await text('span')).toBe(`${s.spanHours.toFixed(1)} h`);
+    expect(await text('observers')).toBe(String(s.observers.length));
+    expect(await text('sailed')).toBe(`${s.sailedNm.toFixed(1)} nm`);
+    expect(await text('in-ice')).toBe(`${s.inIce.hours.toFixed(1)} h · ${s.inIce.distanceNm.toFixed(1)} nm`);
+    expect(await text('marginal')).toBe(`${s.marginal.hours.toFixed(1)} h · ${s.marginal.distanceNm.toFixed(1)} nm`);
+    expect(await text('pack')).toBe(`${s.pack.hours.toFixed(1)} h · ${s.pack.distanceNm.toFixed(1)} nm`);
+    expect(await text('concentration')).toBe(`${s.ice.meanConcentration!.toFixed(1)}/10`);
+    expect(await text('thickness')).toBe(`${s.ice.meanThicknessCm!.toFixed(0)} cm`);
+    expect(await text('thickness-ridges')).toBe(`${s.ice.meanThicknessWithRidgesCm!.toFixed(0)} cm`);
+    expect(await text('rio-min')).toBe(s.polaris.minRio!.toFixed(0));
+    expect(await text('rio-mean')).toBe(s.polaris.meanRio!.toFixed(1));
+  });
+
+  it('shows the latitude bands and draws the four charts', async () => {
+    const { page } = app;
+    const rows = page.getByTestId('band-table').locator('tbody tr');
+    expect(await rows.count()).toBe(expected.bands.bands.length);
+    const north = expected.bands.bands.at(-1)!;
+    const first = rows.first();
+    expect(await first.locator('th').innerText()).toBe(latitudeBandLabel(north.south));
+    expect(await first.locator('td').nth(0).innerText()).toBe(String(north.observations));
+    expect(await first.locator('td').nth(2).innerText()).toBe(`${north.meanConcentration!.toFixed(1)}/10`);
+    // uPlot draws on canvas: every chart has one with a size.
+    await page.locator('[data-testid="chart-temperature"] canvas').waitFor();
+    const sizes = await page.locator('.review-chart canvas').evaluateAll((cs) => cs.map((c) => (c as HTMLCanvasElement).width));
+    expect(sizes).toHaveLength(4);
+    for (const w of sizes) expect(w).toBeGreaterThan(300);
+  });
+
+  it('lists every finding and keeps a review in the observation', async () => {
+    const { page } = app;
+    expect(await page.getByTestId('findings-count').innerText()).toContain(`${findings.length} findings, 0 reviewed`);
+    const item = page.locator('[data-code="stage-thickness-mismatch"]').first();
+    await item.getByRole('button', { name: 'Mark reviewed' }).click();
+    await item.getByLabel('Comment').fill('Grey ice at 45 cm: rafted pancakes, confirmed with the observer.');
+    await item.getByLabel('Reviewed by').fill('Chief scientist');
+    await item.getByRole('button', { name: 'Save the review' }).click();
+    await item.getByTestId('finding-review').waitFor();
+    expect(await item.getByTestId('finding-review').innerText()).toContain('rafted pancakes');
+    expect(await page.getByTestId('findings-count').innerText()).toContain(`${findings.length} findings, 1 reviewed`);
+  });
+
+  it('opens a finding on the map', async () => {
+    const { page } = app;
+    await page.locator('[data-code="implied-speed"]').first().getByRole('button', { name: 'Show on the map' }).click();
+    await page.getByRole('heading', { name: 'Ice map' }).waitFor();
+    await showScreen(page, 'Review');
+    await page.getByTestId('value-observations').waitFor();
+  });
+
+  it('prints the report to a PDF with the summary, charts, findings and cautions', async () => {
+    const { page } = app;
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.getByRole('button', { name: 'Print the report' }).isVisible()).toBe(false);
+    expect(await page.getByRole('navigation', { name: 'Screens' }).isVisible()).toBe(false);
+    expect(await page.getByRole('heading', { name: 'Cautions' }).isVisible()).toBe(true);
+    const pdf = await page.pdf({ format: 'A4', printBackground: true });
+    await page.emulateMedia({ media: 'screen' });
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    // Several pages of tables, charts and findings: far more than an empty page (a few KB).
+    const pages = (pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g) ?? []).length;
+    console.log(`review report: ${pdf.length} bytes, ${pages} pages`);
+    expect(pdf.length).toBeGreaterThan(50_000);
+    expect(pages).toBeGreaterThanOrEqual(3);
+    expect(app.consoleErrors).toEqual([]);
+  });
+});
