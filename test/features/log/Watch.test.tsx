@@ -54,8 +54,6 @@ describe('the watch panel', () => {
 });
 
 describe('the automatic night display', () => {
-  const cruise = { id: 'c' } as Cruise;
-
   it('takes the GPS fix before the latest observation', () => {
     expect(latestShipPosition({ lat: 1, lon: 2 }, [obsAt('2026-03-10T12:00:00Z', { lat: 3, lon: 4 })])).toEqual({ lat: 1, lon: 2 });
     expect(latestShipPosition(null, [obsAt('2026-03-10T11:00:00Z', { lat: 3, lon: 4 }), obsAt('2026-03-10T12:00:00Z')])).toEqual({ lat: 3, lon: 4 });
@@ -70,12 +68,12 @@ describe('the automatic night display', () => {
     // practice), well below the -6 deg civil-twilight line: night.
     vi.useFakeTimers({ toFake: ['Date'], now: new Date('2026-12-21T10:00:00Z') });
     useThemeStore.setState({ mode: 'auto', autoTheme: 'day' });
-    const a = renderHook(() => useAutoTheme(cruise, at81));
+    const a = renderHook(() => useAutoTheme(at81));
     expect(useThemeStore.getState().autoTheme).toBe('night');
     a.unmount();
     // 21 June near local midnight: the lowest elevation is 81 + 23.44 - 90 = +14.4 deg: day.
     vi.setSystemTime(new Date('2026-06-21T22:00:00Z'));
-    renderHook(() => useAutoTheme(cruise, at81));
+    renderHook(() => useAutoTheme(at81));
     expect(useThemeStore.getState().autoTheme).toBe('day');
   });
 });
