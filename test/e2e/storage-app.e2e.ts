@@ -3,6 +3,7 @@
 // reload; data from a newer version makes it refuse to write and say why.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApp, type AppSession } from './harness/browser';
+import { LATEST_SCHEMA_VERSION } from '../../src/db/schema';
 
 describe('storage in the built app', () => {
   let app: AppSession;
@@ -69,6 +70,6 @@ describe('storage in the built app', () => {
     await other.close();
     await page.reload();
     await page.getByTestId('database-alert').waitFor();
-    expect(await page.getByTestId('database-alert').innerText()).toMatch(/saved by a newer version of Floe Ledger \(database version 99; this page knows up to version 1\)/);
+    expect(await page.getByTestId('database-alert').innerText()).toContain(`saved by a newer version of Floe Ledger (database version 99; this page knows up to version ${LATEST_SCHEMA_VERSION})`);
   });
 });

@@ -41,7 +41,7 @@ function WatchCaller({ cruise, observations }: { cruise: Cruise; observations: r
 function CruiseBackground({ cruise }: { cruise: Cruise }) {
   const observations = useObservations(cruise.id);
   const onWatch = useWatchStore((s) => s.observerOnWatch[cruise.id]);
-  useAutoTheme(cruise, observations ?? []);
+  useAutoTheme(observations ?? []);
 
   useEffect(() => {
     if (onWatch) return;

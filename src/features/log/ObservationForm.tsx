@@ -195,6 +195,9 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
         if (k === 'p') {
           e.preventDefault();
           keys.current.startFromPrevious();
+        } else if (k === 'n') {
+          e.preventDefault();
+          focusId('f-time');
         } else if (k === 'a') {
           e.preventDefault();
           const key = useObservationForm.getState().addCategory();
@@ -444,6 +447,7 @@ export const SHORTCUTS: readonly [string, string][] = [
   ['Page Down / Up', 'next / previous section'],
   ['Enter', 'save'],
   ['Alt+P', 'start from the previous observation'],
+  ['Alt+N', 'to the form (time field)'],
   ['Alt+A', 'add an ice type'],
   ['Alt+X', 'remove the ice type you are in'],
   ['Ctrl+Enter', 'save from the notes'],

@@ -3,7 +3,7 @@
 // POLARIS RIO and findings; missed observation slots appear as their own flagged lines.
 // Arrow keys move the selection (shared with the map), Enter edits, H shows the history.
 import { useVirtualizer } from '@tanstack/react-virtual';
-import { useMemo, useRef, type KeyboardEvent } from 'react';
+import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { deriveEggCode, eggCodeText } from '../../domain/eggCode';
 import type { Cruise, Finding, Observation } from '../../domain/model';
 import { polarisForObservation } from '../../domain/polaris';
@@ -18,7 +18,9 @@ export type ListRow =
 
 /** The list's rows, newest first, with missed slots between observations as rows of their own. */
 export function buildRows(cruise: Cruise, observations: readonly Observation[]): ListRow[] {
-  const asc = [...observations].sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : 0));
+  // Same-minute entries: the one saved last is shown first.
+  const key = (o: Observation) => `${o.time}|${o.savedAt}`;
+  const asc = [...observations].sort((a, b) => (key(a) < key(b) ? -1 : key(a) > key(b) ? 1 : 0));
   const rows: ListRow[] = [];
   const first = asc[0];
   const last = asc[asc.length - 1];
@@ -73,8 +75,14 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
     initialRect: { width: 800, height },
   });
   const observers = useMemo(() => new Map(cruise.observers.map((o) => [o.id, o.initials])), [cruise.observers]);
+  const selectionSource = useSelection((s) => s.source);
   const selectedIndex = rows.findIndex((r) => r.kind === 'observation' && r.observation.id === selectedId);
   const count = observations.length;
+
+  // A selection made on the map scrolls the list to it.
+  useEffect(() => {
+    if (selectionSource === 'map' && selectedIndex >= 0) virtualizer.scrollToIndex(selectedIndex, { align: 'center' });
+  }, [selectionSource, selectedIndex, virtualizer]);
 
   const move = (delta: number) => {
     let i = selectedIndex < 0 ? (delta > 0 ? -1 : rows.length) : selectedIndex;

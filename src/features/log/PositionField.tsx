@@ -80,11 +80,11 @@ export function PositionField({ reading, livePosition, note, findings }: Props) 
       ) : (
         <Field id="f-position" label="Position" findings={findings}>
           <div className="inline">
-            <output id={source === 'geolocation' ? 'f-position-value' : 'f-position'} className="position-value" aria-live="polite">
+            <output id="f-position" className="position-value" aria-live="polite">
               {reading ? showPosition(reading) : 'No position yet'}
             </output>
             {source === 'geolocation' && (
-              <button type="button" id="f-position" className="button small" onClick={locate}>
+              <button type="button" id="f-locate" className="button small" onClick={locate}>
                 {held ? 'Locate again' : 'Locate'}
               </button>
             )}

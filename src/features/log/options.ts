@@ -35,10 +35,11 @@ export const MELT_STATE_OPTIONS: PickOption<Exclude<MeltPondState, ''>>[] = [
 ];
 
 export const POSITION_SOURCE_LABELS: Record<PositionSource, string> = {
+  // Distinct first letters, so the picker is type-to-pick by one key (S, G, M, T).
   'gps-serial': 'Ship GPS (serial)',
-  geolocation: 'This device (geolocation)',
-  manual: 'Typed by hand',
-  'track-interpolated': 'From the imported track',
+  geolocation: 'Geolocation of this device',
+  manual: 'Manual, typed',
+  'track-interpolated': 'Track, at the observation time',
   'track-file': 'A point of a track file',
 };
 

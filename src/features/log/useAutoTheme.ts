@@ -2,7 +2,7 @@
 // sun's elevation at the ship's latest known position (a fresh GPS fix, else the latest
 // observation with a position), by the domain's rule (civil twilight with hysteresis).
 import { useEffect } from 'react';
-import type { Cruise, Observation } from '../../domain/model';
+import type { Observation } from '../../domain/model';
 import { themeAt } from '../../domain/solar';
 import { useGpsStore } from '../../state/gps';
 import { useThemeStore } from '../../state/theme';
@@ -21,8 +21,7 @@ export function latestShipPosition(
   return null;
 }
 
-export function useAutoTheme(cruise: Cruise, observations: readonly Observation[]): void {
-  void cruise;
+export function useAutoTheme(observations: readonly Observation[]): void {
   const now = useNow(60_000);
   const fix = useGpsStore((s) => s.fix);
   const mode = useThemeStore((s) => s.mode);
