@@ -29,6 +29,7 @@ const STAGE_WORDS: Record<string, string> = {
 export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => void }) {
   const [phase, setPhase] = useState<Phase>({ kind: 'idle' });
   const [dragging, setDragging] = useState(false);
+  const [note, setNote] = useState<string | null>(null);
   const input = useRef<HTMLInputElement>(null);
   const busy = phase.kind === 'reading' || phase.kind === 'applying';
 
@@ -64,7 +65,11 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
     e.preventDefault();
     setDragging(false);
     const file = e.dataTransfer.files[0];
-    if (file && !busy) void open(file);
+    if (!file) return;
+    if (e.dataTransfer.files.length > 1) setNote(`One file at a time: reading ${file.name} only.`);
+    else setNote(null);
+    if (busy) setNote(`Still working on the previous file; drop ${file.name} again when it is done.`);
+    else void open(file);
   }
 
   return (
@@ -100,6 +105,11 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
         <p className="muted small">Nothing is written until you apply the import. Files from other laptops and older format versions are merged without losing any revision.</p>
       </div>
 
+      {note && (
+        <p role="status" className="muted">
+          {note}
+        </p>
+      )}
       {phase.kind === 'reading' && (
         <div role="status" aria-live="polite">
           <label>
