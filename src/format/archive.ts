@@ -2,7 +2,7 @@
 // to someone else or to an archive. Images are stored, not deflated: JPEG and PNG are already
 // compressed. Reading is in archiveRead.ts.
 import { strToU8, zipSync, type Zippable } from 'fflate';
-import { encodeLog, writeLogJson, type EncodeOptions } from './encode';
+import { exportLogJson, photoArchivePath, type EncodeOptions } from './encode';
 import type { LogBundle, PhotoBytes } from './types';
 
 export const ARCHIVE_LOG_NAME = 'floe-ledger-log.json';
@@ -14,14 +14,13 @@ photos/               the images referenced by the log's "photos" list (archiveP
 `;
 
 export function writeArchive(bundle: LogBundle, photos: PhotoBytes, opts: EncodeOptions = {}): Uint8Array {
-  const file = encodeLog(bundle, opts);
   const files: Zippable = {
-    [ARCHIVE_LOG_NAME]: strToU8(writeLogJson(file).join('')),
+    [ARCHIVE_LOG_NAME]: strToU8(exportLogJson(bundle, opts).join('')),
     'README.txt': strToU8(README),
   };
-  for (const p of file.photos) {
+  for (const p of bundle.photos) {
     const bytes = photos.get(p.id);
-    if (bytes) files[p.archivePath] = [bytes, { level: 0 }];
+    if (bytes) files[photoArchivePath(p)] = [bytes, { level: 0 }];
   }
   return zipSync(files, { level: 6 });
 }

@@ -1,6 +1,6 @@
 // Model -> file: a LogBundle becomes a version-1 log file (SIGRID-3 codes added beside the WMO
 // terms, revisions grouped under their observation, the track as rows).
-import type { IceCategory, Observation, TrackPoint } from '../domain/model';
+import type { FloeSizeKey, IceCategory, Observation, StageKey, TrackPoint } from '../domain/model';
 import { concentrationCode, floeSizeCode, stageCode } from './codes';
 import {
   FORMAT_NAME,
@@ -111,31 +111,142 @@ function isSortedByTime(xs: readonly { time: string }[]): boolean {
   return true;
 }
 
-/**
- * The file text, in parts (one per line) so a large log never has to exist as one string: a
- * Blob or a write stream takes the parts as they are. One observation and one track row per
- * line keeps the file readable and makes line numbers in error messages point at a record.
- */
-export function writeLogJson(file: LogFileV1): string[] {
-  const parts: string[] = ['{\n'];
-  const { observations, track, photos, ...head } = file;
-  for (const [k, v] of Object.entries(head)) parts.push(`  ${JSON.stringify(k)}: ${JSON.stringify(v)},\n`);
-  pushArray(parts, '  "observations": [', observations, '  ],\n');
-  parts.push(`  "track": {\n    "columns": ${JSON.stringify(track.columns)},\n`);
-  pushArray(parts, '    "points": [', track.points, '    ]\n  },\n');
-  pushArray(parts, '  "photos": [', photos, '  ]\n');
-  parts.push('}\n');
-  return parts;
-}
+const SAFE_STRING = /^[0-9A-Za-z:.+-]*$/;
+const CHUNK = 4096;
 
-function pushArray(parts: string[], open: string, items: readonly unknown[], close: string) {
-  if (items.length === 0) {
+/**
+ * Lines of an array, one record per line, gathered into chunks so a million rows make few
+ * parts. `chunk(start, end)` returns the records' JSON lines joined by ",\n    ".
+ */
+function pushChunked(parts: string[], open: string, count: number, chunk: (start: number, end: number) => string, close: string) {
+  if (count === 0) {
     parts.push(open + close.trimStart());
     return;
   }
   parts.push(`${open}\n`);
-  const last = items.length - 1;
-  for (let i = 0; i < last; i++) parts.push(`    ${JSON.stringify(items[i])},\n`);
-  parts.push(`    ${JSON.stringify(items[last])}\n`);
+  for (let start = 0; start < count; start += CHUNK) {
+    const end = Math.min(count, start + CHUNK);
+    parts.push(`    ${chunk(start, end)}${end < count ? ',' : ''}\n`);
+  }
   parts.push(close);
+}
+
+const eachLine = (items: readonly unknown[]) => (start: number, end: number) => {
+  const lines = new Array<string>(end - start);
+  for (let i = start; i < end; i++) lines[i - start] = JSON.stringify(items[i]);
+  return lines.join(',\n    ');
+};
+
+/**
+ * Track rows through one JSON.stringify per chunk (the engine's fast path), split into lines at
+ * the row boundaries. A row's only strings are a time and a source key; should one hold
+ * anything but time characters, that chunk is written row by row instead.
+ */
+const trackLines = (rowAt: (i: number) => TrackRow) => (start: number, end: number) => {
+  const rows = new Array<TrackRow>(end - start);
+  let plain = true;
+  for (let i = start; i < end; i++) {
+    const r = rowAt(i);
+    if (plain && !(SAFE_STRING.test(r[0]) && SAFE_STRING.test(r[3]))) plain = false;
+    rows[i - start] = r;
+  }
+  if (!plain) return rows.map((r) => JSON.stringify(r)).join(',\n    ');
+  return JSON.stringify(rows).slice(1, -1).replaceAll('],[', '],\n    [');
+};
+
+function writeParts(
+  file: LogFileV1,
+  observationCount: number,
+  observationLines: (start: number, end: number) => string,
+  trackCount: number,
+  rowAt: (i: number) => TrackRow,
+): string[] {
+  const parts: string[] = ['{\n'];
+  const { observations: _o, track, photos, ...head } = file;
+  for (const [k, v] of Object.entries(head)) parts.push(`  ${JSON.stringify(k)}: ${JSON.stringify(v)},\n`);
+  pushChunked(parts, '  "observations": [', observationCount, observationLines, '  ],\n');
+  parts.push(`  "track": {\n    "columns": ${JSON.stringify(track.columns)},\n`);
+  pushChunked(parts, '    "points": [', trackCount, trackLines(rowAt), '    ]\n  },\n');
+  pushChunked(parts, '  "photos": [', photos.length, eachLine(photos), '  ]\n');
+  parts.push('}\n');
+  return parts;
+}
+
+/**
+ * The file text, in parts so a large log never has to exist as one string: a Blob or a write
+ * stream takes the parts as they are. One observation and one track row per line keeps the
+ * file readable and makes line numbers in error messages point at a record.
+ */
+export function writeLogJson(file: LogFileV1): string[] {
+  const points = file.track.points;
+  return writeParts(file, file.observations.length, eachLine(file.observations), points.length, (i) => points[i] as TrackRow);
+}
+
+// The SIGRID-3 code of every coded field, put in beside it as text. Keys in JSON text are the
+// only places where `"stage":"` and the like occur unescaped (a quote inside a string value is
+// always escaped), and these keys exist only where the model has them, so the replacement
+// touches exactly the coded fields. test/format/roundtrip.test.ts checks the result against
+// encodeVersion for random observations.
+const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+)|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
+
+// Distinct matches are few (a key and one of a few dozen terms), so replacements are cached.
+const codedCache = new Map<string, string>();
+
+function codedReplacement(m: string, concKey?: string, concValue?: string, termKey?: string, termValue?: string): string {
+  let out = codedCache.get(m);
+  if (out === undefined) {
+    if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
+    else out = `${m},"${termKey}Sigrid3":"${termKey === 'floeSize' ? floeSizeCode(termValue as FloeSizeKey) : stageCode(termValue as StageKey)}"`;
+    if (codedCache.size < 10_000) codedCache.set(m, out);
+  }
+  return out;
+}
+
+function withCodes(json: string): string {
+  return json.replace(CODED_FIELD, codedReplacement);
+}
+
+/** One version of an observation as file JSON: the model's JSON with the codes beside the terms. */
+export function versionJson(o: Observation): string {
+  return withCodes(JSON.stringify(o));
+}
+
+/**
+ * Marks the boundary between two observations inside one JSON.stringify of a chunk: a string
+ * holding only NUL, written as `"\u0000"`. Between two objects of the array it reads
+ * `},"\u0000",{`, which nothing else in a log can produce (ids never hold NUL, and a NUL in a
+ * text value stands after a colon, not between objects), so the boundaries can be cut there.
+ */
+const BOUNDARY = '\u0000';
+const BOUNDARY_JSON = '},"\\u0000",{';
+
+/**
+ * encodeLog and writeLogJson in one, for export: the same document (codes placed right after
+ * their terms), but each chunk of observations goes through one JSON.stringify (the engine's
+ * fast path) instead of one file object and one stringify per observation.
+ */
+export function exportLogJson(bundle: LogBundle, opts: EncodeOptions = {}): string[] {
+  const file = encodeLog({ ...bundle, observations: [], history: [], conflicts: [], track: [] }, opts);
+  const history = groupById(bundle.history);
+  const conflicts = groupById(bundle.conflicts);
+  const observations = [...bundle.observations].sort((a, b) => byTime(a, b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  const entry = (o: Observation): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) => {
+    const h = history.get(o.id);
+    const c = conflicts.get(o.id);
+    if (!h && !c) return o;
+    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...o };
+    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision);
+    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1));
+    return out;
+  };
+  const observationLines = (start: number, end: number) => {
+    const items: unknown[] = [];
+    for (let i = start; i < end; i++) {
+      if (i > start) items.push(BOUNDARY);
+      items.push(entry(observations[i] as Observation));
+    }
+    return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
+  };
+  const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
+  return writeParts(file, observations.length, observationLines, track.length, (i) => encodeTrackPoint(track[i] as TrackPoint));
 }

@@ -26,9 +26,9 @@ async function run(...argv: string[]) {
 
 beforeAll(async () => {
   expect((await run('demo', '-o', demoFile)).code).toBe(0);
-});
+}, 60_000);
 
-describe('demo', () => {
+describe('demo', { timeout: 60_000 }, () => {
   it('writes the invented demo cruise as a valid log, reproducibly', async () => {
     const demo = makeDemoCruise(1);
     const r = readLogText(readFileSync(demoFile, 'utf8'));
@@ -48,7 +48,7 @@ describe('demo', () => {
   });
 });
 
-describe('validate', () => {
+describe('validate', { timeout: 60_000 }, () => {
   it('exit 0 for valid files', async () => {
     const r = await run('validate', demoFile, resolve(ROOT, 'test/format/fixtures/log-v0.json'));
     expect(r.code).toBe(0);
@@ -68,7 +68,7 @@ describe('validate', () => {
   });
 });
 
-describe('summary', () => {
+describe('summary', { timeout: 60_000 }, () => {
   it('prints the cruise statistics, and --json an object computed by the domain', async () => {
     const text = await run('summary', demoFile);
     expect(text.code).toBe(0);
@@ -85,7 +85,7 @@ describe('summary', () => {
   });
 });
 
-describe('convert', () => {
+describe('convert', { timeout: 60_000 }, () => {
   it('to csv, geojson and ndjson', async () => {
     for (const to of ['csv', 'geojson', 'ndjson']) expect((await run('convert', demoFile, '--to', to, '-o', join(dir, `demo.${to}`))).code).toBe(0);
     const n = makeDemoCruise(1).observations.length;
@@ -103,7 +103,7 @@ describe('convert', () => {
   });
 });
 
-describe('merge', () => {
+describe('merge', { timeout: 60_000 }, () => {
   it('merges by the app rules: identical adds nothing, a newer revision is applied, a conflict is kept', async () => {
     const doc = JSON.parse(readFileSync(demoFile, 'utf8')) as { observations: Record<string, unknown>[] };
     const o0 = doc.observations[0] as Record<string, unknown>;
@@ -135,7 +135,7 @@ describe('merge', () => {
   });
 });
 
-describe('the bin shim, spawned', () => {
+describe('the bin shim, spawned', { timeout: 60_000 }, () => {
   const bin = resolve(ROOT, 'bin/floe-ledger.mjs');
   it('exit codes 0, 1 and 2', () => {
     const ok = spawnSync(process.execPath, [bin, 'validate', demoFile, '--quiet'], { encoding: 'utf8' });

@@ -68,10 +68,10 @@ describe('ice map in Chromium', () => {
     await app.page.getByText(`${RING_85N.length} observations`).waitFor();
     await app.page.waitForTimeout(300);
     await waitForIdle(app.page);
-  });
+  }, 240_000);
   afterAll(async () => {
     await app?.close();
-  });
+  }, 240_000);
 
   it('opens a cruise near 85 N on the globe, framed whole, each observation in its band colour', async () => {
     const { page } = app;
@@ -80,7 +80,7 @@ describe('ice map in Chromium', () => {
     await page.screenshot({ path: 'test-results/map-85n-globe.png' });
     await expectBandColours(page, RING_85N, 'globe 85 N');
     await expect(page.getByTestId('map-caution').innerText()).resolves.toContain('Not for navigation');
-  });
+  }, 240_000);
 
   it('draws the same colours in Mercator (where Mercator reaches: up to 85.05 N)', async () => {
     const { page } = app;
@@ -106,7 +106,7 @@ describe('ice map in Chromium', () => {
       await page.waitForTimeout(150);
       await waitForIdle(page);
     }
-  });
+  }, 240_000);
 
   it('selects an observation by clicking it: details panel and a highlight by feature state', async () => {
     const { page } = app;
@@ -126,7 +126,7 @@ describe('ice map in Chromium', () => {
     // The fill keeps its band colour: the data was not reloaded, only the state changed.
     expect(colourDistance((await pixels(page, [p]))[0] as Rgb, expected(i))).toBeLessThan(30);
     await page.getByRole('button', { name: 'Close details' }).click();
-  });
+  }, 240_000);
 
   it('filters by observer without reloading: the other observer’s symbols go', async () => {
     const { page } = app;
@@ -146,7 +146,7 @@ describe('ice map in Chromium', () => {
       await waitForIdle(page);
     }
     await expectBandColours(page, RING_85N, 'all again');
-  });
+  }, 240_000);
 
   it('draws the egg code beside an observation at a larger scale', async () => {
     const { page } = app;
@@ -164,7 +164,7 @@ describe('ice map in Chromium', () => {
     expect(rgb.filter((c) => colourDistance(c, [16, 22, 29]) < 60).length).toBeGreaterThan(3);
     await page.getByRole('button', { name: 'Whole cruise' }).click();
     await waitForIdle(page);
-  });
+  }, 240_000);
 
   it('frames a cruise at 75 S on the globe when it becomes the active one', async () => {
     const { page } = app;
@@ -178,5 +178,5 @@ describe('ice map in Chromium', () => {
     await expectFramed(page, LINE_75S);
     await expectBandColours(page, LINE_75S, 'globe 75 S');
     expect(app.consoleErrors).toEqual([]);
-  });
+  }, 240_000);
 });

@@ -8,10 +8,12 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApp, type AppSession } from './harness/browser';
 import { serviceWorkerState, waitForServiceWorkerControl } from './harness/pwa';
+import { createCruise } from './harness/logFlow';
 
 const ROOT = resolve(import.meta.dirname, '../..');
 const NEXT_DIR = resolve(ROOT, 'dist-update-test');
 const NEXT_BUILD = `update-test-${Date.now()}`;
+const DRAFT_NOTES = 'Half-typed when the update came: nilas in the leads, not yet saved.';
 
 const buildOf = (page: Page) => page.evaluate(() => document.documentElement.dataset.build);
 const bannerPhase = (page: Page) => page.getByTestId('update-banner').getAttribute('data-phase');
@@ -45,6 +47,15 @@ describe('offline: app update only with the observer’s agreement', () => {
     await waitForPhase(app.page, 'offline-ready');
     await app.page.getByTestId('update-banner').getByRole('button', { name: 'OK' }).click();
     expect(await app.page.getByTestId('update-banner').count()).toBe(0);
+  });
+
+  it('an observation is half typed (the draft, never saved)', async () => {
+    const { page } = app;
+    await createCruise(page, { name: 'Update trial', vessel: 'RV Frostwren', observers: [{ name: 'Ines Tarvo', initials: 'IT' }] });
+    await page.locator('#f-total').fill('6');
+    await page.locator('#f-notes').fill(DRAFT_NOTES);
+    // Give the autosave its moment, as an observer would have between keystrokes.
+    await page.waitForTimeout(1000);
   });
 
   it('announces a new version, says the draft is kept, and does not apply it by itself', async () => {
@@ -88,6 +99,10 @@ describe('offline: app update only with the observer’s agreement', () => {
     await waitForPhase(page, 'updated');
     expect(await page.getByTestId('update-banner').innerText()).toContain(NEXT_BUILD);
     expect(await serviceWorkerState(page)).toEqual({ controlled: true, active: 'activated', waiting: null, installing: null });
+    // The draft came through the update.
+    await page.locator('#f-notes').waitFor();
+    expect(await page.locator('#f-notes').inputValue()).toBe(DRAFT_NOTES);
+    expect(await page.locator('#f-total').inputValue()).toBe('6');
 
     await waitForPhase(other, 'updated-elsewhere');
     expect(await buildOf(other)).toBe(firstBuild);

@@ -3,7 +3,8 @@
 // data (makeDemoCruise), mark a finding reviewed, and print the report to PDF.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApp, type AppSession } from './harness/browser';
-import { showScreen } from './harness/screens';
+import { runAxe } from './harness/pwa';
+import { THEMES, setTheme, showScreen } from './harness/screens';
 import { makeDemoCruise } from '../../src/domain/demo';
 import { collectFindings, latitudeBandLabel, reviewCruise } from '../../src/domain/stats';
 
@@ -54,6 +55,8 @@ describe('cruise review of the demo cruise', () => {
     expect(await first.locator('th').innerText()).toBe(latitudeBandLabel(north.south));
     expect(await first.locator('td').nth(0).innerText()).toBe(String(north.observations));
     expect(await first.locator('td').nth(2).innerText()).toBe(`${north.meanConcentration!.toFixed(1)}/10`);
+    // The track overview: one dot per observation with a position.
+    expect(await page.getByTestId('track-sketch').locator('circle').count()).toBe(demo.observations.filter((o) => o.position).length);
     // uPlot draws on canvas: every chart has one with a size.
     await page.locator('[data-testid="chart-temperature"] canvas').waitFor();
     const sizes = await page.locator('.review-chart canvas').evaluateAll((cs) => cs.map((c) => (c as HTMLCanvasElement).width));
@@ -74,10 +77,35 @@ describe('cruise review of the demo cruise', () => {
     expect(await page.getByTestId('findings-count').innerText()).toContain(`${findings.length} findings, 1 reviewed`);
   });
 
+  it('has no serious or critical accessibility violation with the cruise loaded (axe-core), in every display', async () => {
+    const { page } = app;
+    const blocking: string[] = [];
+    for (const theme of THEMES) {
+      await setTheme(page, theme);
+      for (const f of await runAxe(page)) if (f.impact === 'serious' || f.impact === 'critical') blocking.push(`${theme}: ${f.id} at ${f.nodes.slice(0, 3).join(', ')}`);
+    }
+    await setTheme(page, 'day');
+    expect(blocking).toEqual([]);
+  });
+
   it('opens a finding on the map', async () => {
     const { page } = app;
     await page.locator('[data-code="implied-speed"]').first().getByRole('button', { name: 'Show on the map' }).click();
     await page.getByRole('heading', { name: 'Ice map' }).waitFor();
+    // Let the map finish starting (its worker and sources) before leaving it: leaving at once
+    // can cut its blob: loads short, which Chromium reports as console errors.
+    await page.locator('main canvas').first().waitFor({ timeout: 30_000 });
+    await page.waitForTimeout(1500);
+    await showScreen(page, 'Review');
+    await page.getByTestId('value-observations').waitFor();
+  });
+
+  it('opens a finding in the watch log form, with the revision that holds the review', async () => {
+    const { page } = app;
+    const f = findings.find((x) => x.code === 'stage-thickness-mismatch')!;
+    await page.locator('[data-code="stage-thickness-mismatch"]').first().getByRole('button', { name: 'Open in the form' }).click();
+    // Revision 2: the review saved above is a new revision of the observation.
+    await page.getByRole('heading', { name: `Editing the ${f.time.slice(11, 16)} UTC observation (revision 2)` }).waitFor();
     await showScreen(page, 'Review');
     await page.getByTestId('value-observations').waitFor();
   });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { readLogText } from '../../src/format/read';
 import { hostileCases, validText } from './hostile';
 
-describe('hostile and broken files', () => {
+describe('hostile and broken files', { timeout: 120_000 }, () => {
   const cases = hostileCases();
 
   it('the generator makes at least 1,000 distinct cases from a file that is itself valid', () => {

@@ -11,7 +11,7 @@ function stored(): LogBundle {
   return sampleBundle();
 }
 
-describe('merge planning', () => {
+describe('merge planning', { timeout: 120_000 }, () => {
   it('into nothing: everything is new', () => {
     const b = sampleBundle();
     const plan = planMerge(bundleTarget(null), b);

@@ -1,6 +1,6 @@
 // `convert FILE --to geojson|csv|ndjson|log -o OUT`: the same writers as the app's export.
 import { writeCsv } from '../../format/csv.ts';
-import { encodeLog, writeLogJson } from '../../format/encode.ts';
+import { exportLogJson } from '../../format/encode.ts';
 import { writeGeoJson } from '../../format/geojson.ts';
 import { writeNdjson } from '../../format/ndjson.ts';
 import { writeArchive } from '../../format/archive.ts';
@@ -41,7 +41,7 @@ export const convertCommand: Command = {
     else if (to === 'csv') writeOut(out, writeCsv(b, opts));
     else if (to === 'ndjson') writeOut(out, writeNdjson(b, opts));
     else if (to === 'zip') writeOut(out, writeArchive(b, log.photos));
-    else writeOut(out, writeLogJson(encodeLog(b)));
+    else writeOut(out, exportLogJson(b));
     io.stdout(`wrote ${out} (${to})`);
     return EXIT_OK;
   },

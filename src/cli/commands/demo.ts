@@ -1,7 +1,7 @@
 // `demo -o FILE`: writes the invented demo cruise (src/domain/demo.ts) as a log file.
 import { makeDemoCruise } from '../../domain/demo.ts';
 import { writeArchive } from '../../format/archive.ts';
-import { encodeLog, writeLogJson } from '../../format/encode.ts';
+import { exportLogJson } from '../../format/encode.ts';
 import type { LogBundle } from '../../format/types.ts';
 import { parseOptions, stringOption } from '../args.ts';
 import { EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
@@ -33,7 +33,7 @@ export const demoCommand: Command = {
     const bundle = demoBundle(Number(seedText));
     // A fixed export time keeps the demo file byte-for-byte reproducible.
     const opts = { exportedAt: bundle.cruise.updatedAt };
-    writeOut(out, out.toLowerCase().endsWith('.zip') ? writeArchive(bundle, new Map(), opts) : writeLogJson(encodeLog(bundle, opts)));
+    writeOut(out, out.toLowerCase().endsWith('.zip') ? writeArchive(bundle, new Map(), opts) : exportLogJson(bundle, opts));
     io.stdout(`wrote ${out}: ${bundle.observations.length} observations, ${bundle.track.length} track points (invented demo data)`);
     return EXIT_OK;
   },

@@ -1,7 +1,7 @@
 // `merge FILE FILE... -o OUT`: merges logs of one cruise by the same rules as the app's import
 // (src/format/merge.ts): new, identical, newer revision, older revision, conflict (both kept).
 import { writeArchive } from '../../format/archive.ts';
-import { encodeLog, writeLogJson } from '../../format/encode.ts';
+import { exportLogJson } from '../../format/encode.ts';
 import { applyPlanToBundle, bundleTarget, MergeRefused, planMerge } from '../../format/merge.ts';
 import type { LogBundle, PhotoBytes } from '../../format/types.ts';
 import { parseOptions, stringOption } from '../args.ts';
@@ -48,7 +48,7 @@ export const mergeCommand: Command = {
       for (const [id, bytes] of log.photos) if (!photos.has(id)) photos.set(id, bytes);
     }
     const result = merged as LogBundle;
-    writeOut(out, out.toLowerCase().endsWith('.zip') ? writeArchive(result, photos) : writeLogJson(encodeLog(result)));
+    writeOut(out, out.toLowerCase().endsWith('.zip') ? writeArchive(result, photos) : exportLogJson(result));
     io.stdout(`wrote ${out}: ${result.observations.length} observations, ${result.history.length} earlier revisions, ${result.conflicts.length} conflicting copies, ${result.track.length} track points`);
     return EXIT_OK;
   },

@@ -12,3 +12,4 @@ export { legDistanceM, SHORT_LEG_LIMIT_M } from './legDistance.ts';
 export { buildDistanceTimeline, distanceAt, distanceBetween, type DistanceTimeline, type DistanceSource } from './distanceTimeline.ts';
 export { rioForObservation, type RioOnly } from './rio.ts';
 export { collectFindings, reviewFor, withFindingReview, withoutFindingReview, type ReviewFinding } from './findings.ts';
+export { equivalentThicknessCm } from './ridgeEstimate.ts';

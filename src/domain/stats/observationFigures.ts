@@ -41,6 +41,8 @@ export function observationFigures(
   obs: Observation,
   iceClass: VesselIceClass,
   ridgeEstimate: RidgeThicknessEstimate | null,
+  /** Filled in and returned instead of a new object (the review reuses one for a whole cruise). */
+  into?: ObservationFigures,
 ): ObservationFigures {
   let tSum = 0;
   let tW = 0;
@@ -70,16 +72,24 @@ export function observationFigures(
     }
   }
   const polaris = rioForObservation(obs, iceClass);
+  const f = into ?? emptyFigures();
+  f.levelThicknessCm = tW > 0 ? tSum / tW : null;
+  f.thicknessWeightedSum = tSum;
+  f.thicknessWeight = tW;
+  f.ridgedThicknessCm = rtW > 0 ? rtSum / rtW : null;
+  f.ridgedThicknessWeightedSum = rtSum;
+  f.ridgedThicknessWeight = rtW;
+  f.ridgedWeightedSum = rSum;
+  f.ridgedWeight = rW;
+  f.rio = polaris ? polaris.rio : null;
+  f.outcome = polaris ? polaris.outcome : null;
+  return f;
+}
+
+export function emptyFigures(): ObservationFigures {
   return {
-    levelThicknessCm: tW > 0 ? tSum / tW : null,
-    thicknessWeightedSum: tSum,
-    thicknessWeight: tW,
-    ridgedThicknessCm: rtW > 0 ? rtSum / rtW : null,
-    ridgedThicknessWeightedSum: rtSum,
-    ridgedThicknessWeight: rtW,
-    ridgedWeightedSum: rSum,
-    ridgedWeight: rW,
-    rio: polaris ? polaris.rio : null,
-    outcome: polaris ? polaris.outcome : null,
+    levelThicknessCm: null, thicknessWeightedSum: 0, thicknessWeight: 0,
+    ridgedThicknessCm: null, ridgedThicknessWeightedSum: 0, ridgedThicknessWeight: 0,
+    ridgedWeightedSum: 0, ridgedWeight: 0, rio: null, outcome: null,
   };
 }

@@ -3,13 +3,13 @@
 import { METRES_PER_NM } from '../geodesy.ts';
 import type { Cruise, IsoUtc, Observation, Observer, TrackPoint, VesselIceClass } from '../model.ts';
 import { POLARIS_OUTCOME_LABELS, type PolarisOutcome } from '../polaris.ts';
-import { equivalentThickness } from '../ridges.ts';
+import { equivalentThicknessCm } from './ridgeEstimate.ts';
 import { attributeTime, type ObservationGap } from './attribution.ts';
 import { LatitudeBandBuilder, type LatitudeBandTable } from './bands.ts';
 import { buildDistanceTimelineFromColumns, distanceBetween, EMPTY_TIMELINE, type DistanceSource, type DistanceTimeline } from './distanceTimeline.ts';
 import { HandoverBuilder, type HandoverTable } from './handover.ts';
 import { IcePool, type IceFigures } from './icePool.ts';
-import { observationFigures, type ObservationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
+import { emptyFigures, observationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
 import { ICE_REGIMES, ICE_REGIME_LABELS, iceRegime, isInIce, type IceRegime } from './regimes.ts';
 import { SeriesBuilder, type ReviewSeries } from './series.ts';
 
@@ -160,7 +160,7 @@ function timelineFor(obs: readonly Observation[], times: Float64Array, track: re
 }
 
 /** ridges.ts equivalent thickness (an estimate, see there). */
-export const defaultRidgeEstimate: RidgeThicknessEstimate = (c) => equivalentThickness(c)?.equivalentCm ?? null;
+export const defaultRidgeEstimate: RidgeThicknessEstimate = equivalentThicknessCm;
 
 const observerName = (observers: readonly Observer[], id: string): Observer =>
   observers.find((o) => o.id === id) ?? { id, name: `Unknown observer (${id.slice(0, 8)})`, initials: '?' };
@@ -192,7 +192,9 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
   let rioN = 0;
   let minRio: number | null = null;
   let minRioIdx = -1;
-  let prevFig: ObservationFigures | null = null;
+  // One figures object reused for every observation: nothing below keeps it.
+  const fig = emptyFigures();
+  let prevLevel: number | null = null;
 
   for (let i = 0; i < n; i++) {
     const o = obs[i] as Observation;
@@ -201,7 +203,7 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
     const hours = durMs / HOUR_MS;
     const nm = tl.source === 'none' ? 0 : distanceBetween(tl, t, t + durMs) / METRES_PER_NM;
     attributedNmAll += nm;
-    const fig = observationFigures(o, cruise.iceClass, ridgeEstimate);
+    observationFigures(o, cruise.iceClass, ridgeEstimate, fig);
 
     if (i > 0) {
       const prev = obs[i - 1] as Observation;
@@ -214,11 +216,11 @@ export function reviewCruise(input: ReviewInput): CruiseReview {
           missedObservations: Math.max(0, Math.round((t - fromMs) / interval) - 1),
           unobservedHours: (t - fromMs - att.capMs) / HOUR_MS,
         });
-      } else if (prevFig) {
-        handover.add(prev, prevFig.levelThicknessCm, o, fig.levelThicknessCm);
+      } else {
+        handover.add(prev, prevLevel, o, fig.levelThicknessCm);
       }
     }
-    prevFig = fig;
+    prevLevel = fig.levelThicknessCm;
 
     if (!include(o)) continue;
     included++;

@@ -2,7 +2,7 @@
 // through the File System Access API (Chromium). The browser keeps the folder handle in the
 // store; after a reload it may ask again for permission, which needs a click.
 import { getSetting, readCruiseExport, setSetting } from '../../db';
-import { encodeLog, writeLogJson } from '../../format/encode';
+import { exportLogJson } from '../../format/encode';
 import { slug } from './download';
 
 /** The parts of the API that TypeScript's DOM library does not describe (Chromium only). */
@@ -55,7 +55,7 @@ export async function writeBackup(dir: FileSystemDirectoryHandle, cruiseId: stri
   const file = await dir.getFileHandle(fileName, { create: true });
   const writable = await file.createWritable();
   try {
-    await writable.write(new Blob(writeLogJson(encodeLog(bundle)), { type: 'application/json' }));
+    await writable.write(new Blob(exportLogJson(bundle), { type: 'application/json' }));
     await writable.close();
   } catch (err) {
     await writable.abort().catch(() => undefined);

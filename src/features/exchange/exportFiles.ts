@@ -2,7 +2,7 @@
 import { readCruiseExport } from '../../db';
 import { writeArchive } from '../../format/archive';
 import { writeCsv } from '../../format/csv';
-import { encodeLog, writeLogJson } from '../../format/encode';
+import { exportLogJson } from '../../format/encode';
 import { writeGeoJson } from '../../format/geojson';
 import { writeNdjson } from '../../format/ndjson';
 import { MEDIA_TYPE } from '../../format/types';
@@ -32,7 +32,7 @@ export async function buildExport(cruiseId: string, kind: ExportKind, opts: { in
   const { bundle, photos } = await readCruiseExport(cruiseId, { photoBytes: kind === 'zip' });
   const flat = { includeDeleted: opts.includeDeleted === true };
   let parts: BlobPart[];
-  if (kind === 'log') parts = writeLogJson(encodeLog(bundle));
+  if (kind === 'log') parts = exportLogJson(bundle);
   else if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
   else if (kind === 'csv') parts = writeCsv(bundle, flat);
   else if (kind === 'ndjson') parts = writeNdjson(bundle, flat);

@@ -134,20 +134,28 @@ export interface ShipProps {
 /**
  * The ship's latest position: the later of the last track point and the last observation with
  * a position. Heading from the fix's heading, else its course over ground, else the bearing
- * from the previous track point.
+ * from the previous track point. The track comes in time order (as the store keeps it), so
+ * only its last two points are read: the track may hold a million.
  */
 export function shipFeature(track: readonly TrackPoint[], observations: readonly Observation[]): Feature<Point, ShipProps> | null {
-  const points = sortedTrack(track);
-  const last = points[points.length - 1];
+  const last = track[track.length - 1];
   let lastObs: Observation | undefined;
-  for (const o of observations) if (!o.deleted && o.position && (!lastObs || timeMs(o.time) > timeMs(lastObs.time))) lastObs = o;
-  if (last && (!lastObs || timeMs(last.time) >= timeMs(lastObs.time))) {
-    const prev = points[points.length - 2];
+  let lastObsT = -Infinity;
+  for (const o of observations) {
+    if (o.deleted || !o.position) continue;
+    const t = timeMs(o.time);
+    if (t > lastObsT) {
+      lastObs = o;
+      lastObsT = t;
+    }
+  }
+  if (last && (!lastObs || timeMs(last.time) >= lastObsT)) {
+    const prev = track[track.length - 2];
     const heading = last.headingDeg ?? last.cogDeg ?? (prev ? initialBearing([prev.lon, prev.lat], [last.lon, last.lat]) : -1);
     return { type: 'Feature', geometry: { type: 'Point', coordinates: [last.lon, last.lat] }, properties: { heading, t: timeMs(last.time) } };
   }
   if (lastObs?.position) {
-    return { type: 'Feature', geometry: { type: 'Point', coordinates: [lastObs.position.lon, lastObs.position.lat] }, properties: { heading: -1, t: timeMs(lastObs.time) } };
+    return { type: 'Feature', geometry: { type: 'Point', coordinates: [lastObs.position.lon, lastObs.position.lat] }, properties: { heading: -1, t: lastObsT } };
   }
   return null;
 }

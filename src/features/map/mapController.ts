@@ -23,6 +23,8 @@ export interface MapControllerOptions {
   onSelect: (id: string | null) => void;
   /** Told when the map is idle (everything drawn) or busy again. */
   onState?: (state: 'loading' | 'idle' | 'busy') => void;
+  /** Told when a prepared track has been handed to the map (benchmarks wait for it). */
+  onTrackFed?: () => void;
 }
 
 export interface MapData {
@@ -47,6 +49,7 @@ export class MapController {
   private selected: string | null = null;
   private filter: ObservationFilter = { fromMs: null, toMs: null, observerIds: [] };
   private userMoved = false;
+  private graticuleKey = '';
   private cruiseId: string | null = null;
   private obsPositions: LonLat[] = [];
   private trackPositions: LonLat[] = [];
@@ -177,7 +180,12 @@ export class MapController {
       east = 180;
     }
     const steps = graticuleSteps(this.map.getZoom(), this.map.getCenter().lat);
-    this.map.setFilter(LAYER.graticule, graticuleFilter(steps));
+    // A new filter makes MapLibre re-cut the source's tiles: only when the spacing changes.
+    const key = `${steps.lat}/${steps.lon}`;
+    if (key !== this.graticuleKey) {
+      this.graticuleKey = key;
+      this.map.setFilter(LAYER.graticule, graticuleFilter(steps));
+    }
     const fc = graticuleLabels({ west, east, south: b.getSouth(), north: b.getNorth() }, steps);
     for (const f of fc.features) f.properties.text = LABEL_PREFIX + f.properties.text;
     this.source(SRC.graticuleLabels)?.setData(fc);
@@ -237,6 +245,7 @@ export class MapController {
     this.whenLoaded(() => {
       this.feed(SRC.track, SRC.miz, pair);
       this.overlay.setParts(pair.polar ?? { track: [], miz: [] });
+      this.opts.onTrackFed?.();
       this.frameOnce();
     });
   }

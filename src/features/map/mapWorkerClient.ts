@@ -4,6 +4,7 @@ import type { FeatureCollection } from 'geojson';
 import type { Topology } from 'topojson-specification';
 import type { TrackPoint } from '../../domain/model';
 import { landFromTopology } from './land';
+import MapDataWorker from './mapWorker.ts?worker&inline';
 import { mizFeatures, toleranceAtZoom, trackLevels, type PolarParts, type TrackArrays } from './trackLevels';
 
 export interface TrackJob extends TrackArrays {
@@ -78,27 +79,34 @@ const decoder = new TextDecoder();
  * Runs jobs in one Web Worker; without Worker support (tests in Node) it computes in place.
  */
 export class MapWorker {
-  private worker: Worker | null = null;
+  private worker: Promise<Worker> | null = null;
+  private disposed = false;
   private nextId = 1;
   private pending = new Map<number, (r: WorkerResult) => void>();
 
   constructor() {
     if (typeof Worker !== 'undefined') {
-      this.worker = new Worker(new URL('./mapWorker.ts', import.meta.url), { type: 'module', name: 'floe-map-data' });
-      this.worker.onmessage = (e: MessageEvent<WorkerResult>) => {
-        const done = this.pending.get(e.data.id);
-        this.pending.delete(e.data.id);
-        done?.(e.data);
-      };
+      // Inlined in the bundle and started from a blob URL: the worker needs no request of its
+      // own, so the map also starts with no network and no service worker (CSP: worker-src blob:).
+      this.worker = Promise.resolve().then(() => {
+        const w = new MapDataWorker({ name: 'floe-map-data' });
+        w.onmessage = (e: MessageEvent<WorkerResult>) => {
+          const done = this.pending.get(e.data.id);
+          this.pending.delete(e.data.id);
+          done?.(e.data);
+        };
+        if (this.disposed) w.terminate();
+        return w;
+      });
     }
   }
 
   private run(job: WorkerJob, transfer: Transferable[]): Promise<PreparedPair> {
-    const worker = this.worker as Worker;
-    return new Promise<WorkerResult>((resolve) => {
+    const worker = this.worker as Promise<Worker>;
+    return worker.then((w) => new Promise<WorkerResult>((resolve) => {
       this.pending.set(job.id, resolve);
-      worker.postMessage(job, transfer);
-    }).then((r) => {
+      w.postMessage(job, transfer);
+    })).then((r) => {
       if (r.kind === 'error') throw new Error(r.message);
       const polar = r.c ? (JSON.parse(decoder.decode(r.c)) as PolarParts) : undefined;
       if (typeof URL.createObjectURL !== 'function') {
@@ -140,7 +148,8 @@ export class MapWorker {
   }
 
   dispose(): void {
-    this.worker?.terminate();
+    this.disposed = true;
+    void this.worker?.then((w) => w.terminate());
     this.worker = null;
     this.pending.clear();
   }

@@ -101,7 +101,13 @@ export class PolarOverlay {
     return cos > 0.1;
   }
 
+  private blank = false;
+
   private render(): void {
+    const empty = !this.enabled || (this.points.length === 0 && this.parts.track.length === 0 && this.parts.miz.length === 0 && !this.ship);
+    // Nothing to draw (the usual case away from the poles): clear once, then skip each frame.
+    if (empty && this.blank) return;
+    this.blank = empty;
     const el = this.map.getCanvas();
     const w = el.clientWidth;
     const h = el.clientHeight;

@@ -137,8 +137,11 @@ export function toleranceAtZoom(zoom: number): number {
   return 0.5 / (512 * 2 ** zoom);
 }
 
-/** The finest level keeps detail down to the zoom where a ship track stops gaining any. */
-const FINEST_DETAIL_ZOOM = 16;
+/**
+ * The finest level keeps detail to half a pixel at this zoom: near 80 N a pixel there is under
+ * 2 m, finer than a ship's GPS fix.
+ */
+const FINEST_DETAIL_ZOOM = 14;
 
 /**
  * Pieces of the line between antimeridian crossings: [start, end] index pairs, inclusive. A

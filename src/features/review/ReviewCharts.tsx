@@ -27,6 +27,18 @@ function canDraw(): boolean {
   return typeof window !== 'undefined' && typeof window.matchMedia === 'function' && !/jsdom/i.test(navigator.userAgent);
 }
 
+/** Chart width in CSS pixels on an A4 or Letter page with the usual margins. */
+const PRINT_WIDTH = 680;
+
+/** Tick labels in UTC, 24-hour: "03-10 06:00" (the day only at midnight ticks). */
+function utcTickLabels(_u: uPlot, splits: number[]): string[] {
+  return splits.map((ts) => {
+    const iso = new Date(ts * 1000).toISOString();
+    const hm = iso.slice(11, 16);
+    return hm === '00:00' ? iso.slice(5, 10) : hm;
+  });
+}
+
 function summaryText(lines: LineSpec[], unit: string): string {
   return lines
     .map((l) => {
@@ -48,39 +60,48 @@ function Chart({ spec, time, theme }: { spec: ChartSpec; time: number[]; theme: 
   useEffect(() => {
     const el = box.current;
     if (!el || !canDraw()) return;
-    // uPlot reads matchMedia when it loads, so it is loaded only where it can draw (and it stays
-    // out of the first bundle).
+    const width = Math.max(320, Math.min(1100, el.clientWidth || 800));
+    // A printed page is narrower than the screen: redraw at the page's width while printing.
+    const print = window.matchMedia('print');
     let plot: uPlot | null = null;
     let cancelled = false;
+    const fitTo = (printing: boolean): void => {
+      plot?.setSize({ width: printing ? PRINT_WIDTH : width, height: 200 });
+    };
+    const onPrint = (e: MediaQueryListEvent): void => fitTo(e.matches);
+    print.addEventListener('change', onPrint);
+    // uPlot reads matchMedia when it loads, so it is loaded only where it can draw (and it stays
+    // out of the first bundle).
     void import('uplot').then(({ default: UPlot }) => {
       if (cancelled) return;
-    const css = getComputedStyle(document.documentElement);
-    const text = css.getPropertyValue('--text').trim() || '#000';
-    const grid = css.getPropertyValue('--border').trim() || '#ccc';
-    const axis = { stroke: text, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } };
-    const width = Math.max(320, Math.min(1100, el.clientWidth || 800));
-    const opts: uPlot.Options = {
-      width,
-      height: 200,
-      // Times are UTC, as stored; uPlot would otherwise label in the browser's zone.
-      tzDate: (ts) => UPlot.tzDate(new Date(ts * 1000), 'Etc/UTC'),
-      scales: { x: { time: true }, y: spec.range ? { range: spec.range } : {} },
-      axes: [{ ...axis }, { ...axis, label: spec.unit, size: 60 }],
-      series: [
-        { label: 'Time (UTC)' },
-        ...spec.lines.map((l) => ({
-          label: l.label,
-          stroke: theme === 'red' ? text : l.colour,
-          width: 1.5,
-          spanGaps: false,
-          points: { show: false },
-          ...(l.dash ? { dash: l.dash } : {}),
-        })),
-      ],
-    };
-    plot = new UPlot(opts, [time, ...spec.lines.map((l) => l.values)] as uPlot.AlignedData, el);
+      const css = getComputedStyle(document.documentElement);
+      const text = css.getPropertyValue('--text').trim() || '#000';
+      const grid = css.getPropertyValue('--border').trim() || '#ccc';
+      const axis = { stroke: text, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } };
+      const opts: uPlot.Options = {
+        width,
+        height: 200,
+        // Times are UTC, as stored; uPlot would otherwise label in the browser's zone.
+        tzDate: (ts) => UPlot.tzDate(new Date(ts * 1000), 'Etc/UTC'),
+        scales: { x: { time: true }, y: spec.range ? { range: spec.range } : {} },
+        axes: [{ ...axis, values: utcTickLabels, size: 50 }, { ...axis, label: spec.unit, size: 60 }],
+        series: [
+          { label: 'Time (UTC)' },
+          ...spec.lines.map((l) => ({
+            label: l.label,
+            stroke: theme === 'red' ? text : l.colour,
+            width: 1.5,
+            spanGaps: false,
+            points: { show: false },
+            ...(l.dash ? { dash: l.dash } : {}),
+          })),
+        ],
+      };
+      plot = new UPlot(opts, [time, ...spec.lines.map((l) => l.values)] as uPlot.AlignedData, el);
+      fitTo(print.matches);
     });
     return () => {
+      print.removeEventListener('change', onPrint);
       cancelled = true;
       plot?.destroy();
     };

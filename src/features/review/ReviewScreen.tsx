@@ -10,6 +10,7 @@ import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
 import { ReviewCharts } from './ReviewCharts';
 import { SummaryCards } from './SummaryCards';
+import { TrackSketch } from './TrackSketch';
 import { useReviewCruise, useReviewObservations, useReviewTrack } from './reviewData';
 import './review.css';
 
@@ -69,6 +70,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
         )}
       </div>
       <SummaryCards summary={review.summary} cruise={cruise} />
+      <TrackSketch observations={observations} track={track} />
       <ReviewCharts series={review.series} />
       <BandTable table={review.bands} />
       <HandoverTable table={review.handover} observers={cruise.observers} highlight={observerId || null} />

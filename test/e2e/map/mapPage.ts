@@ -6,6 +6,12 @@ import type { Cruise, Observation, TrackPoint } from '../../../src/domain/model'
 export async function openMapScreen(page: Page): Promise<void> {
   await page.getByRole('navigation', { name: 'Screens' }).getByRole('button', { name: 'Ice map' }).click();
   await waitForIdle(page);
+  await showMap(page);
+}
+
+/** Scrolls the map fully into the viewport (banners above it may push it down), so screenshots hold it. */
+export async function showMap(page: Page): Promise<void> {
+  await page.getByTestId('map-canvas').evaluate((el) => el.scrollIntoView({ block: 'end' }));
 }
 
 /** Waits until the map reports idle (every tile and source drawn) and stays so for a moment. */

@@ -1,7 +1,7 @@
 // The track work done off the main thread: simplification per zoom level (Douglas-Peucker,
 // checked on hand-made lines) and the antimeridian split.
 import { describe, expect, it } from 'vitest';
-import { mizStretchIndexes, seamPieces, simplifyIndexes, toleranceAtZoom, trackLevels, TRACK_LEVELS } from '../../../src/features/map/trackLevels';
+import { beyondMercator, clipAtMercatorLimit, MERCATOR_LIMIT_LAT, mizStretchIndexes, seamPieces, simplifyIndexes, toleranceAtZoom, trackLevels, TRACK_LEVELS } from '../../../src/features/map/trackLevels';
 
 describe('simplification', () => {
   it('keeps the ends and the corners, drops points on a straight run', () => {
@@ -56,5 +56,36 @@ describe('marginal ice zone runs', () => {
     expect(mizStretchIndexes(t, new Float64Array([0, 30]), new Uint8Array([0, 1]), 100)).toEqual([[2, 5]]);
     expect(mizStretchIndexes(t, new Float64Array([0, 30]), new Uint8Array([0, 1]), 12)).toEqual([[2, 4]]);
     expect(mizStretchIndexes(t, new Float64Array([]), new Uint8Array([]), 12)).toEqual([]);
+  });
+});
+
+describe('the Mercator limit', () => {
+  // Web Mercator ends at 85.051129 degrees (atan(sinh(pi))), where MapLibre's tiles end.
+  it('is where Web Mercator ends', () => {
+    expect(MERCATOR_LIMIT_LAT).toBeCloseTo((Math.atan(Math.sinh(Math.PI)) * 180) / Math.PI, 5);
+    expect(beyondMercator(85.1)).toBe(true);
+    expect(beyondMercator(-85.1)).toBe(true);
+    expect(beyondMercator(85)).toBe(false);
+  });
+
+  it('cuts a line at the limit with the crossing interpolated, into the parts inside and beyond', () => {
+    const L = MERCATOR_LIMIT_LAT;
+    const { inside, beyond } = clipAtMercatorLimit([[0, 84], [10, 86], [20, 84]]);
+    const f = (L - 84) / 2;
+    expect(inside).toHaveLength(2);
+    expect(beyond).toHaveLength(1);
+    expect(inside[0]?.[0]).toEqual([0, 84]);
+    expect(inside[0]?.[1]?.[0]).toBeCloseTo(10 * f, 9);
+    expect(inside[0]?.[1]?.[1]).toBe(L);
+    expect(beyond[0]?.map((p) => p[1])).toEqual([L, 86, L]);
+    expect(clipAtMercatorLimit([[0, 80], [1, 81]])).toEqual({ inside: [[[0, 80], [1, 81]]], beyond: [] });
+    expect(clipAtMercatorLimit([[0, -86], [1, -87]]).beyond).toHaveLength(1);
+  });
+
+  it('sends the polar parts of the track to the overlay', () => {
+    const polar = { track: [] as number[][][], miz: [] as number[][][] };
+    const fc = trackLevels({ t: new Float64Array([0, 1, 2]), lon: new Float64Array([0, 10, 20]), lat: new Float64Array([84, 86, 84]) }, polar);
+    expect(polar.track).toHaveLength(1);
+    for (const f of fc.features) for (const l of f.geometry.coordinates) for (const p of l) expect(Math.abs(p[1] as number)).toBeLessThanOrEqual(MERCATOR_LIMIT_LAT);
   });
 });
