@@ -6,6 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sentencesForFix } from '../../src/gps/nmeaWrite';
 import { openApp, type AppSession } from './harness/browser';
 import { installFakeSerial } from './harness/fakeSerial';
+import { runAxe } from './harness/pwa';
+import { THEMES, setTheme } from './harness/screens';
 
 /** Invented fixes drifting north-east near 81.2 N 31 E, one a second from now, as NMEA lines. */
 function inventedNmea(count: number): string[] {
@@ -182,5 +184,18 @@ describe('the watch log in Chromium', () => {
     expect(await page.getByLabel('Stage Sa').inputValue()).toBe('Grey ice');
     expect(await page.getByLabel('Notes').inputValue()).toBe('fog bank to the north');
     expect(app.consoleErrors).toEqual([]);
+  });
+
+  it('has no serious or critical accessibility violation with a cruise, findings and the list shown, in every display', async () => {
+    const { page } = app;
+    const blocking: string[] = [];
+    for (const theme of THEMES) {
+      await setTheme(page, theme);
+      for (const f of await runAxe(page)) {
+        if (f.impact === 'serious' || f.impact === 'critical') blocking.push(`${theme}: ${f.id} (${f.help}) at ${f.nodes.slice(0, 3).join(', ')}`);
+      }
+    }
+    await setTheme(page, 'day');
+    expect(blocking).toEqual([]);
   });
 });

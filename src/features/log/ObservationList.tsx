@@ -78,6 +78,8 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
   const selectionSource = useSelection((s) => s.source);
   const selectedIndex = rows.findIndex((r) => r.kind === 'observation' && r.observation.id === selectedId);
   const count = observations.length;
+  const selectedRow = rows[selectedIndex];
+  const selected = selectedRow?.kind === 'observation' ? selectedRow.observation : null;
 
   // A selection made on the map scrolls the list to it.
   useEffect(() => {
@@ -128,6 +130,14 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
       <h3 id="list-title">
         Observations <span className="muted">({count})</span>
       </h3>
+      <div className="list-toolbar inline">
+        <button type="button" className="button small" disabled={selected === null} onClick={() => selected && onEdit(selected)}>
+          Edit the selected observation <kbd>Enter</kbd>
+        </button>
+        <button type="button" className="button small" disabled={selected === null} onClick={() => selected && onHistory(selected)}>
+          Its history{selected && selected.revision > 1 ? ` (${selected.revision} revisions)` : ''} <kbd>H</kbd>
+        </button>
+      </div>
       <div className="list-header" aria-hidden="true">
         <span>Time, UTC</span>
         <span>Obs.</span>
@@ -136,7 +146,6 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
         <span>Egg code</span>
         <span>RIO</span>
         <span>Findings</span>
-        <span />
       </div>
       <div
         ref={scrollRef}
@@ -168,15 +177,15 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
             const o = r.observation;
             const errors = r.findings.filter((f) => f.severity === 'error').length;
             const warnings = r.findings.length - errors;
-            const selected = o.id === selectedId;
+            const isSelected = o.id === selectedId;
             return (
               <div
                 key={o.id}
                 id={`row-${o.id}`}
-                className={`list-row${selected ? ' selected' : ''}`}
+                className={`list-row${isSelected ? ' selected' : ''}`}
                 style={style}
                 role="option"
-                aria-selected={selected}
+                aria-selected={isSelected}
                 onClick={() => select(o.id, 'list')}
                 onDoubleClick={() => onEdit(o)}
                 data-testid="observation-row"
@@ -192,14 +201,6 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
                   {errors > 0 && warnings > 0 && ', '}
                   {warnings > 0 && <span className="finding-warning">{warnings} warning{warnings > 1 ? 's' : ''}</span>}
                   {r.findings.length === 0 && <span className="muted">—</span>}
-                </span>
-                <span className="cell-actions">
-                  <button type="button" className="button small" tabIndex={-1} onClick={() => onEdit(o)} aria-label={`Edit the ${o.time.slice(11, 16)} observation`}>
-                    Edit
-                  </button>
-                  <button type="button" className="button small" tabIndex={-1} onClick={() => onHistory(o)} aria-label={`History of the ${o.time.slice(11, 16)} observation`}>
-                    History{o.revision > 1 ? ` (${o.revision})` : ''}
-                  </button>
                 </span>
               </div>
             );
