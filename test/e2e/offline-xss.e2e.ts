@@ -34,6 +34,11 @@ async function start(): Promise<Session> {
   return { server, browser, page, trap, violations, consoleErrors };
 }
 
+async function stop(s: Session | undefined): Promise<void> {
+  await s?.browser.close();
+  await s?.server.close();
+}
+
 /** Visits every screen in every display; returns how many payloads each screen shows as text. */
 async function sweep(s: Session, label: string): Promise<Record<string, number>> {
   const shown: Record<string, number> = {};
@@ -56,6 +61,15 @@ async function sweep(s: Session, label: string): Promise<Record<string, number>>
   return shown;
 }
 
+/** No payload ran, none became markup, the CSP reported nothing; other console errors are printed. */
+async function expectNothingRan(s: Session, label: string): Promise<void> {
+  expect(await injectedMarkup(s.page)).toEqual([]);
+  expect(s.trap.fired).toEqual([]);
+  expect(s.violations).toEqual([]);
+  expect(cspConsoleLines(s.consoleErrors)).toEqual([]);
+  if (s.consoleErrors.length) console.log(`xss ${label}: other console errors`, s.consoleErrors);
+}
+
 function minutesAgo(m: number): string {
   const d = new Date(Date.now() - m * 60_000);
   return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)}`;
@@ -66,10 +80,7 @@ describe('XSS: payloads typed into the forms', () => {
   beforeAll(async () => {
     s = await start();
   });
-  afterAll(async () => {
-    await s?.browser.close();
-    await s?.server.close();
-  });
+  afterAll(() => stop(s));
 
   it('cruise, vessel and observer names, and notes, are stored and shown as text', async () => {
     const P = XSS_PAYLOADS;
@@ -104,11 +115,7 @@ describe('XSS: payloads typed into the forms', () => {
     }
     console.log(`xss typed: ${literal} of ${P.length} notes shown literally in the map details`);
     expect(literal).toBe(P.length);
-    expect(await injectedMarkup(s.page)).toEqual([]);
-    expect(s.trap.fired).toEqual([]);
-    expect(s.violations).toEqual([]);
-    expect(cspConsoleLines(s.consoleErrors)).toEqual([]);
-    if (s.consoleErrors.length) console.log('xss typed: other console errors', s.consoleErrors);
+    await expectNothingRan(s, 'typed');
   });
 
   it('the trap itself works: a payload turned into markup would be caught', async () => {
@@ -135,10 +142,7 @@ describe('XSS: payloads in an imported log file', () => {
   beforeAll(async () => {
     s = await start();
   });
-  afterAll(async () => {
-    await s?.browser.close();
-    await s?.server.close();
-  });
+  afterAll(() => stop(s));
 
   it('every text of the file is shown as text after import', async () => {
     const bundle = demoBundle(3);
@@ -169,10 +173,6 @@ describe('XSS: payloads in an imported log file', () => {
     }
     console.log(`xss imported: ${literal} of ${withPosition.length} clicked observations show their notes literally`);
     expect(literal).toBe(withPosition.length);
-    expect(await injectedMarkup(s.page)).toEqual([]);
-    expect(s.trap.fired).toEqual([]);
-    expect(s.violations).toEqual([]);
-    expect(cspConsoleLines(s.consoleErrors)).toEqual([]);
-    if (s.consoleErrors.length) console.log('xss imported: other console errors', s.consoleErrors);
+    await expectNothingRan(s, 'imported');
   });
 });

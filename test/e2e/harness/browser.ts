@@ -32,6 +32,8 @@ export interface LaunchOptions {
   /** Reuse a profile folder (to test persistence across a relaunch); a fresh one otherwise. */
   userDataDir?: string;
   offline?: boolean;
+  /** Keep service workers out of this run (to load the app from the network as a baseline). */
+  blockServiceWorkers?: boolean;
 }
 
 export interface Browser {
@@ -49,6 +51,7 @@ export async function launchChromium(opts: LaunchOptions = {}): Promise<Browser>
     viewport: { width: 1280, height: 800 },
     acceptDownloads: true,
     offline: opts.offline ?? false,
+    serviceWorkers: opts.blockServiceWorkers ? 'block' : 'allow',
   });
   return {
     context,
