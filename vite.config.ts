@@ -1,5 +1,7 @@
 import { defineConfig } from 'vitest/config';
 import react from '@vitejs/plugin-react';
+import { existsSync, realpathSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { pwa, stripCspInDev } from './src/app/pwa.config.ts';
 
 // One config for the app build and the unit/component/database tests.
@@ -12,7 +14,13 @@ export default defineConfig({
   // Keep the cache in the project, not in node_modules, so several checkouts that share one
   // node_modules (git worktrees) do not trample each other's optimised deps.
   cacheDir: '.vite-cache',
-  server: { host: '127.0.0.1', port: 5173 },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    // A checkout whose node_modules is a link (git worktrees sharing one install) must still be
+    // allowed to serve files from the real folder, e.g. the basemap's `?url` imports.
+    fs: { allow: ['.', ...(existsSync('node_modules') ? [realpathSync(resolve('node_modules'))] : [])] },
+  },
   preview: { host: '127.0.0.1', port: 4173, strictPort: true },
   build: {
     target: 'es2022',
