@@ -80,6 +80,8 @@ describe('ice map in Chromium', () => {
     await page.screenshot({ path: 'test-results/map-85n-globe.png' });
     await expectBandColours(page, RING_85N, 'globe 85 N');
     await expect(page.getByTestId('map-caution').innerText()).resolves.toContain('Not for navigation');
+    // Online, the worker fetched and fixed the 1:50m land for the larger scales.
+    expect(await page.evaluate(() => window.__floeMapDebug?.fineLand())).toBe('loaded');
   }, 240_000);
 
   it('draws the same colours in Mercator (where Mercator reaches: up to 85.05 N)', async () => {
