@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openApp, type AppSession } from './harness/browser';
 import { BAND_TOTALS, LINE_75S, observationsAt, RING_85N, testCruise, trackThrough } from './map/fixtures';
-import { colourDistance, hexRgb, loadCruise, mapRect, openMapScreen, pixels, screenPoint, waitForIdle, type Rgb, type ScreenPoint } from './map/mapPage';
+import { colourDistance, hexRgb, loadCruise, mapRect, openMapScreen, pagePoint, pixels, screenPoint, waitForIdle, type Rgb, type ScreenPoint } from './map/mapPage';
 import { band, bandOfTenths } from '../../src/features/map/concentrationBands';
 import { PALETTES } from '../../src/features/map/style';
 
@@ -118,7 +118,8 @@ describe('ice map in Chromium', () => {
     const cyan = hexRgb(PALETTES.day.selected);
     const before = await pixels(page, around(p, 8));
     expect(before.some((c) => colourDistance(c, cyan) < 60)).toBe(false);
-    await page.mouse.click(p.x, p.y);
+    const at = await pagePoint(page, p);
+    await page.mouse.click(at.x, at.y);
     await page.getByTestId('map-details').waitFor();
     expect(await page.getByTestId('map-details').innerText()).toContain('10/10');
     await page.waitForTimeout(200);
