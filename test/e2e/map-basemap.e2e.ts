@@ -58,6 +58,7 @@ describe('basemap offline', () => {
     // Only the fine land's asset may be asked for (without an offline cache it fails, and the
     // coarse land, bundled in the code, serves at every zoom).
     expect(requests.filter((u) => !/land-50m/.test(u))).toEqual([]);
+    expect(['loaded', 'failed']).toContain(await page.evaluate(() => window.__floeMapDebug?.fineLand()));
   }, 240_000);
 
   it('draws no stripes across Mercator at the antimeridian', async () => {

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { openApp, type AppSession } from './harness/browser';
 import { BAND_TOTALS, LINE_75S, observationsAt, RING_85N, testCruise, trackThrough } from './map/fixtures';
-import { colourDistance, hexRgb, loadCruise, mapRect, openMapScreen, pixels, screenPoint, waitForIdle, type Rgb, type ScreenPoint } from './map/mapPage';
+import { colourDistance, hexRgb, loadCruise, mapRect, openMapScreen, pagePoint, pixels, screenPoint, waitForIdle, type Rgb, type ScreenPoint } from './map/mapPage';
 import { band, bandOfTenths } from '../../src/features/map/concentrationBands';
 import { PALETTES } from '../../src/features/map/style';
 
@@ -80,6 +80,8 @@ describe('ice map in Chromium', () => {
     await page.screenshot({ path: 'test-results/map-85n-globe.png' });
     await expectBandColours(page, RING_85N, 'globe 85 N');
     await expect(page.getByTestId('map-caution').innerText()).resolves.toContain('Not for navigation');
+    // Online, the worker fetched and fixed the 1:50m land for the larger scales.
+    expect(await page.evaluate(() => window.__floeMapDebug?.fineLand())).toBe('loaded');
   }, 240_000);
 
   it('draws the same colours in Mercator (where Mercator reaches: up to 85.05 N)', async () => {
@@ -116,7 +118,8 @@ describe('ice map in Chromium', () => {
     const cyan = hexRgb(PALETTES.day.selected);
     const before = await pixels(page, around(p, 8));
     expect(before.some((c) => colourDistance(c, cyan) < 60)).toBe(false);
-    await page.mouse.click(p.x, p.y);
+    const at = await pagePoint(page, p);
+    await page.mouse.click(at.x, at.y);
     await page.getByTestId('map-details').waitFor();
     expect(await page.getByTestId('map-details').innerText()).toContain('10/10');
     await page.waitForTimeout(200);

@@ -5,7 +5,6 @@
 import type { FeatureCollection, MultiLineString, MultiPolygon } from 'geojson';
 import type { Topology } from 'topojson-specification';
 import land110 from 'world-atlas/land-110m.json';
-import land50Url from 'world-atlas/land-50m.json?url';
 import { landFromTopology } from './land';
 import { graticuleLines } from './graticule';
 
@@ -23,7 +22,11 @@ export function graticuleData(): ReturnType<typeof graticuleLines> {
   return graticule;
 }
 
-/** Absolute URL of the fine land topology, for the worker to fetch. */
+/**
+ * Absolute URL of the fine land topology, for the worker to fetch. Written as `new URL` on the
+ * file (not a `?url` import) so the bundler emits it as an asset and tests that merely import
+ * this module never load it.
+ */
 export function fineLandUrl(): string {
-  return new URL(land50Url, globalThis.location?.href ?? 'http://localhost/').href;
+  return new URL('../../../node_modules/world-atlas/land-50m.json', import.meta.url).href;
 }

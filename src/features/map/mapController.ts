@@ -49,6 +49,8 @@ export class MapController {
   private selected: string | null = null;
   private filter: ObservationFilter = { fromMs: null, toMs: null, observerIds: [] };
   private userMoved = false;
+  /** Whether the 1:50m land arrived (else the 1:110m serves at every zoom). */
+  fineLand: 'pending' | 'loaded' | 'failed' = 'pending';
   private graticuleKey = '';
   private cruiseId: string | null = null;
   private obsPositions: LonLat[] = [];
@@ -110,9 +112,19 @@ export class MapController {
     this.updateLabels();
     this.worker
       .land(fineLandUrl())
-      .then((pair) => this.whenLoaded(() => this.feed(SRC.land50, SRC.coast50, pair)))
+      .then((pair) =>
+        this.whenLoaded(() => {
+          this.feed(SRC.land50, SRC.coast50, pair);
+          this.fineLand = 'loaded';
+        }),
+      )
       // Without the fine land (e.g. offline before it was ever cached) the coarse land serves at every zoom.
-      .catch(() => this.whenLoaded(() => this.useCoarseLandEverywhere()));
+      .catch(() =>
+        this.whenLoaded(() => {
+          this.useCoarseLandEverywhere();
+          this.fineLand = 'failed';
+        }),
+      );
     const queued = this.pending;
     this.pending = [];
     for (const f of queued) f();

@@ -14,6 +14,7 @@ export interface MapDebug {
   positions: () => (readonly [number, number])[];
   jumpTo: (lon: number, lat: number, zoom: number) => void;
   frame: () => void;
+  fineLand: () => string;
   /** Stores a cruise with its observations and track and makes it the active one. */
   loadCruise: (cruise: Cruise, observations: Observation[], track: TrackPoint[]) => Promise<void>;
 }
@@ -40,6 +41,7 @@ export function installMapDebug(c: MapController): () => void {
     positions: () => c.positions(),
     jumpTo: (lon, lat, zoom) => c.map.jumpTo({ center: [lon, lat], zoom }),
     frame: () => c.frame(),
+    fineLand: () => c.fineLand,
     loadCruise: async (cruise, observations, track) => {
       const stored = await createCruise(cruise);
       for (const o of observations) await saveObservation({ ...o, cruiseId: stored.id });

@@ -33,26 +33,33 @@ export interface ScreenPoint {
   y: number;
 }
 
-/** Where a position is drawn, in page pixels. */
+/**
+ * Where a position is drawn, in pixels of the map element (so banners that shift the page
+ * between two steps of a test do not matter).
+ */
 export async function screenPoint(page: Page, lon: number, lat: number): Promise<ScreenPoint> {
-  return page.evaluate(([lon, lat]) => {
-    const rect = (document.querySelector('[data-testid="map-canvas"]') as HTMLElement).getBoundingClientRect();
-    const p = window.__floeMapDebug?.project(lon, lat) ?? { x: NaN, y: NaN };
-    return { x: rect.left + p.x, y: rect.top + p.y };
-  }, [lon, lat] as const);
+  return page.evaluate(([lon, lat]) => window.__floeMapDebug?.project(lon, lat) ?? { x: NaN, y: NaN }, [lon, lat] as const);
 }
 
+/** The map element's own box, in its own pixels. */
 export async function mapRect(page: Page): Promise<{ x: number; y: number; width: number; height: number }> {
   const box = await page.getByTestId('map-canvas').boundingBox();
   if (!box) throw new Error('map canvas has no box');
-  return box;
+  return { x: 0, y: 0, width: box.width, height: box.height };
+}
+
+/** A map point in page pixels, for mouse clicks. */
+export async function pagePoint(page: Page, p: ScreenPoint): Promise<ScreenPoint> {
+  const box = await page.getByTestId('map-canvas').boundingBox();
+  if (!box) throw new Error('map canvas has no box');
+  return { x: box.x + p.x, y: box.y + p.y };
 }
 
 export type Rgb = [number, number, number];
 
-/** The colour of the page at each point, from a screenshot decoded in the page itself. */
+/** The colour of the map at each point (map pixels), from a screenshot of the map decoded in the page itself. */
 export async function pixels(page: Page, points: readonly ScreenPoint[]): Promise<Rgb[]> {
-  const png = (await page.screenshot()).toString('base64');
+  const png = (await page.getByTestId('map-canvas').screenshot()).toString('base64');
   return page.evaluate(
     async ({ png, points }) => {
       const img = new Image();
