@@ -4,6 +4,7 @@
 import { alongTrackDistanceM, METRES_PER_NM } from '../domain/geodesy';
 import type { Observation, StageKey } from '../domain/model';
 import { checkSequence, validateObservation } from '../domain/rules';
+import { reviewCruise, type CruiseReview } from '../domain/stats';
 import type { LogBundle } from './types';
 
 export interface CruiseSummary {
@@ -19,6 +20,8 @@ export interface CruiseSummary {
   stages: Partial<Record<StageKey, number>>;
   photos: number;
   findings: { errors: number; warnings: number; byCode: Record<string, number> };
+  /** The chief scientist's figures (ice hours and distances, thickness, POLARIS), as the Review screen shows them. */
+  review: CruiseReview['summary'];
 }
 
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
@@ -56,6 +59,7 @@ export function summarise(bundle: LogBundle): CruiseSummary {
     stages,
     photos: bundle.photos.length,
     findings: { errors: findings.filter((f) => f.severity === 'error').length, warnings: findings.filter((f) => f.severity === 'warning').length, byCode },
+    review: reviewCruise({ cruise: bundle.cruise, observations: bundle.observations, track: bundle.track }).summary,
   };
 }
 
@@ -76,10 +80,30 @@ export function summaryLines(s: CruiseSummary): string[] {
     ...Object.entries(s.stages)
       .sort((a, b) => (b[1] ?? 0) - (a[1] ?? 0))
       .map(([k, n]) => `  ${k}: ${n}`),
+    ...reviewLines(s.review),
     `Findings    ${s.findings.errors} errors, ${s.findings.warnings} warnings`,
     ...Object.entries(s.findings.byCode)
       .sort((a, b) => b[1] - a[1])
       .map(([k, n]) => `  ${k}: ${n}`),
   ];
   return lines;
+}
+
+const fixed = (x: number | null, digits: number, unit = '') => (x === null ? '-' : `${x.toFixed(digits)}${unit}`);
+
+/** The review figures: where the ship was in ice and what the risk index said. */
+function reviewLines(r: CruiseReview['summary']): string[] {
+  const td = (label: string, t: { hours: number; distanceNm: number }) =>
+    `${label.padEnd(12)}${t.hours.toFixed(1)} h, ${t.distanceNm.toFixed(1)} NM`;
+  const ice = r.ice;
+  return [
+    td('In ice', r.inIce) + ' (total concentration at least 1/10)',
+    td('Marginal', r.marginal) + ' (2-8/10, the common 15-80 % definition)',
+    td('Pack ice', r.pack) + ' (9-10/10)',
+    `Gaps        ${r.gaps.length}, ${r.unobservedHours.toFixed(1)} h with no observation`,
+    `Thickness   ${fixed(ice.meanThicknessCm, 0, ' cm')} level, ${fixed(ice.meanThicknessWithRidgesCm, 0, ' cm')} with ridges (estimate), concentration-weighted`,
+    `Ridged      ${ice.ridgedShare === null ? '-' : `${(ice.ridgedShare * 100).toFixed(0)} %`} of the ice area`,
+    `POLARIS     class ${r.polaris.iceClass}: RIO min ${fixed(r.polaris.minRio, 0)}, mean ${fixed(r.polaris.meanRio, 1)} (decision support only)`,
+    ...r.polaris.outcomes.map((o) => `  ${o.label}: ${o.hours.toFixed(1)} h`),
+  ];
 }

@@ -10,6 +10,7 @@ import type { CliIO } from '../../src/cli/command.ts';
 import { runCli } from '../../src/cli/main.ts';
 import { makeDemoCruise } from '../../src/domain/demo.ts';
 import { alongTrackDistanceM } from '../../src/domain/geodesy.ts';
+import { reviewCruise } from '../../src/domain/stats.ts';
 import { readLogText } from '../../src/format/read.ts';
 
 const ROOT = resolve(import.meta.dirname, '../..');
@@ -82,6 +83,21 @@ describe('summary', { timeout: 60_000 }, () => {
     expect(s.track.distanceNm).toBeCloseTo(alongTrackDistanceM(demo.track) / 1852, 1);
     const mean = demo.observations.reduce((a, o) => a + (o.totalConcentration ?? 0), 0) / demo.observations.length;
     expect(s.meanTotalConcentration).toBeCloseTo(mean, 2);
+  });
+
+  it('carries the review figures of the domain (ice hours, thickness, POLARIS) in text and --json', async () => {
+    const demo = makeDemoCruise(1);
+    const expected = reviewCruise({ cruise: demo.cruise, observations: demo.observations, track: demo.track }).summary;
+    const r = await run('summary', demoFile, '--json');
+    const s = JSON.parse(r.out.at(-1) as string) as { review: typeof expected };
+    expect(s.review.inIce.hours).toBeCloseTo(expected.inIce.hours, 6);
+    expect(s.review.marginal.distanceNm).toBeCloseTo(expected.marginal.distanceNm, 6);
+    expect(s.review.polaris.iceClass).toBe('PC5');
+    expect(s.review.polaris.minRio).toBe(expected.polaris.minRio);
+    const text = (await run('summary', demoFile)).out.join('\n');
+    expect(text).toContain(`In ice      ${expected.inIce.hours.toFixed(1)} h`);
+    expect(text).toContain(`POLARIS     class PC5: RIO min ${expected.polaris.minRio}`);
+    expect(text).toContain('decision support only');
   });
 });
 
