@@ -37,6 +37,8 @@ export interface MapData {
 
 const EGG_PREFIX = 'egg:';
 const LABEL_PREFIX = 'lbl:';
+/** How long blob: URLs of a removed map are kept, for a read MapLibre's worker had already begun. */
+const RELEASE_GRACE_MS = 10_000;
 
 export class MapController {
   readonly map: MapLibreMap;
@@ -112,12 +114,15 @@ export class MapController {
     this.updateLabels();
     this.worker
       .land(fineLandUrl())
-      .then((pair) =>
-        this.whenLoaded(() => {
-          this.feed(SRC.land50, SRC.coast50, pair);
-          this.fineLand = 'loaded';
-        }),
-      )
+      .then((pair) => {
+        // Never handed to MapLibre when the map went away meanwhile: free it at once.
+        if (this.destroyed) pair.release();
+        else
+          this.whenLoaded(() => {
+            this.feed(SRC.land50, SRC.coast50, pair);
+            this.fineLand = 'loaded';
+          });
+      })
       // Without the fine land (e.g. offline before it was ever cached) the coarse land serves at every zoom.
       .catch(() =>
         this.whenLoaded(() => {
@@ -391,7 +396,16 @@ export class MapController {
     this.destroyed = true;
     this.worker.dispose();
     this.overlay.destroy();
-    for (const r of this.releases.values()) r();
+    // The last blob: URLs handed to setData may not have been read yet: MapLibre's worker fetches
+    // them when it gets to the message, so freeing them here made leaving the map quickly log
+    // "Failed to load resource: net::ERR_FILE_NOT_FOUND" per URL. Removing the map stops its
+    // workers (terminated once no map is left); the URLs are freed after a grace period in which a
+    // fetch already under way completes, so the data is held for seconds, not for the session.
+    const left = [...this.releases.values(), ...this.releaseWhenIdle.splice(0)];
+    this.releases.clear();
     this.map.remove();
+    setTimeout(() => {
+      for (const r of left) r();
+    }, RELEASE_GRACE_MS);
   }
 }

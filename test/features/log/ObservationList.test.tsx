@@ -76,6 +76,31 @@ describe('ObservationList', () => {
     expect(onEdit).toHaveBeenCalledWith(expect.objectContaining({ id: 'o1' }));
   });
 
+  it('nests no control inside an option; the toolbar buttons act on the selected row', async () => {
+    // WAI-ARIA 1.2: option has presentational children, so a button inside a row is hidden from
+    // assistive technology (axe-core rule nested-interactive). The actions live above the list.
+    const onEdit = vi.fn();
+    const onHistory = vi.fn();
+    const user = userEvent.setup();
+    useSelection.setState({ selectedId: null, source: null });
+    render(<ObservationList cruise={cruise} observations={[obs(1, 0), obs(2, 1, { revision: 3 })]} onEdit={onEdit} onHistory={onHistory} />);
+    for (const option of screen.getAllByRole('option')) {
+      expect(option.querySelectorAll('button, a[href], input, select, textarea, [tabindex]')).toHaveLength(0);
+    }
+    const edit = screen.getByRole('button', { name: /Edit the selected observation/ });
+    expect(edit).toBeDisabled();
+    screen.getByTestId('observation-list').focus();
+    await user.keyboard('{ArrowDown}');
+    expect(screen.getByTestId('observation-list')).toHaveAttribute('aria-activedescendant', 'row-o2');
+    await user.click(screen.getByRole('button', { name: /Its history \(3 revisions\)/ }));
+    expect(onHistory).toHaveBeenCalledWith(expect.objectContaining({ id: 'o2' }));
+    await user.click(edit);
+    expect(onEdit).toHaveBeenCalledWith(expect.objectContaining({ id: 'o2' }));
+    screen.getByTestId('observation-list').focus();
+    await user.keyboard('{ArrowDown}h');
+    expect(onHistory).toHaveBeenLastCalledWith(expect.objectContaining({ id: 'o1' }));
+  });
+
   it('renders only a window of a long cruise', () => {
     const many = Array.from({ length: 20_000 }, (_, i) => obs(i, i));
     render(<ObservationList cruise={cruise} observations={many} onEdit={() => undefined} onHistory={() => undefined} />);
