@@ -1,7 +1,7 @@
 // Steps through the real screens that several reliability tests share: create a cruise from the
 // watch log's start screen, log one observation, export the log. Labels are the app's own.
 import type { Page } from 'playwright-core';
-import { screenPoint, waitForIdle } from '../map/mapPage';
+import { pagePoint, screenPoint, waitForIdle } from '../map/mapPage';
 import { showScreen } from './screens';
 
 export interface CruiseInput {
@@ -71,7 +71,8 @@ export async function detailsOnMap(page: Page, lon: number, lat: number): Promis
   // The map may still be framing the cruise when it first turns idle: then aim again.
   for (let attempt = 0; ; attempt++) {
     await waitForIdle(page);
-    const p = await screenPoint(page, lon, lat);
+    // The debug hook projects into the map's own pixels; the mouse needs page pixels.
+    const p = await pagePoint(page, await screenPoint(page, lon, lat));
     const view = page.viewportSize();
     if (view && (p.y < 0 || p.y >= view.height || p.x < 0 || p.x >= view.width)) {
       // Scroll the page so the point is on screen, then aim again.
