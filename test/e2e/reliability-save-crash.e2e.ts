@@ -7,8 +7,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DIST_DIR, launchChromium, type Browser } from './harness/browser';
-import { browserPids, killBrowser } from './harness/crash';
+import { DIST_DIR } from './harness/browser';
+import { killBrowser, launchKillable } from './harness/crash';
 import { storedNotes } from './harness/idbCounts';
 import { createCruise } from './harness/logFlow';
 import { serveDirectory, type StaticServer } from './harness/server';
@@ -25,18 +25,7 @@ afterAll(async () => {
   if (profile) await rm(profile, { recursive: true, force: true });
 });
 
-interface Session {
-  browser: Browser;
-  page: Page;
-  pids: number[];
-}
-
-async function launch(): Promise<Session> {
-  const browser = await launchChromium({ userDataDir: profile });
-  const page = browser.context.pages()[0] ?? (await browser.context.newPage());
-  await page.goto(server.url);
-  return { browser, page, pids: await browserPids(browser) };
-}
+const launch = () => launchKillable(profile, server.url);
 
 /** Types one observation and saves it with Enter; resolves when the form says it is saved. */
 async function saveWithEnter(page: Page, notes: string, total: string): Promise<string> {
