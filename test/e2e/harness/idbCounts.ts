@@ -53,3 +53,23 @@ export function storedNotes(page: Page): Promise<string[]> {
     DEFAULT_DB_NAME,
   );
 }
+
+/**
+ * Opens the app's database at a higher version from this page and closes it again, as a newer
+ * release in another tab would; resolves with the version the database now has.
+ */
+export function openAtVersion(page: Page, version: number): Promise<number> {
+  return page.evaluate(
+    ([name, version]) =>
+      new Promise<number>((ok, fail) => {
+        const req = indexedDB.open(name, version);
+        req.onerror = () => fail(req.error);
+        req.onsuccess = () => {
+          const v = req.result.version;
+          req.result.close();
+          ok(v);
+        };
+      }),
+    [DEFAULT_DB_NAME, version] as const,
+  );
+}
