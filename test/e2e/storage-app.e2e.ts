@@ -3,6 +3,7 @@
 // reload; data from a newer version makes it refuse to write and say why.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openApp, type AppSession } from './harness/browser';
+import { openAtVersion } from './harness/idbCounts';
 import { LATEST_SCHEMA_VERSION } from '../../src/db/schema';
 
 describe('storage in the built app', () => {
@@ -50,18 +51,7 @@ describe('storage in the built app', () => {
     // A second tab of the app; from it, a newer release is played by opening the database at a
     // higher version (its own app connection closes itself on the versionchange, as this one must).
     await other.goto(app.server.url);
-    const newVersion = await other.evaluate(
-      () =>
-        new Promise<number>((ok, fail) => {
-          const req = indexedDB.open('floe-ledger', 990);
-          req.onerror = () => fail(req.error);
-          req.onsuccess = () => {
-            const v = req.result.version;
-            req.result.close();
-            ok(v);
-          };
-        }),
-    );
+    const newVersion = await openAtVersion(other, 990);
     expect(newVersion).toBe(990);
     const alert = page.getByTestId('database-alert');
     await alert.waitFor();

@@ -1,6 +1,7 @@
 // Crashing the browser on purpose: SIGKILL of the browser process, as a power cut or an OS
 // kill would leave it. Only the processes of the browser this test launched are touched.
-import type { Browser } from './browser';
+import type { Page } from 'playwright-core';
+import { launchChromium, type Browser } from './browser';
 
 export interface Killable {
   browser: Browser;
@@ -40,4 +41,12 @@ export async function killBrowser(k: Killable): Promise<void> {
   }
   // Playwright's side of the connection is gone with the process; let it settle.
   await k.browser.context.close().catch(() => undefined);
+}
+
+/** A browser on a kept profile with one page opened at `url`, and the pids to kill it by. */
+export async function launchKillable(userDataDir: string, url: string): Promise<Killable & { page: Page }> {
+  const browser = await launchChromium({ userDataDir });
+  const page = browser.context.pages()[0] ?? (await browser.context.newPage());
+  await page.goto(url);
+  return { browser, page, pids: await browserPids(browser) };
 }
