@@ -35,5 +35,14 @@ describe('track file import in Chromium', () => {
     expect(await result.textContent()).toContain('1 bad line');
     // Line 122 writes decimal commas (81,32), which are not decimal degrees: listed, not imported.
     expect(await result.getByRole('listitem').first().textContent()).toMatch(/^line 122: /);
+
+    // The imported track now gives the form its position at an observation time inside it.
+    await page.getByLabel('Position from').selectOption('track-interpolated');
+    await page.getByLabel('Time, UTC').fill('2026-03-09 01:00');
+    await expect.poll(() => page.getByText('Along the track at the observation time.').count(), { timeout: 15_000 }).toBe(1);
+    // At 01:00 the track has the fix of row 61: 81.26 N 14.62 E, that is 81 deg 15.6' N 014 deg 37.2' E.
+    const shown = (await page.locator('output#f-position').textContent()) ?? '';
+    expect(shown).toMatch(/81\D+15\.60*\D/);
+    expect(shown).toMatch(/14\D+37\.20*\D/);
   }, 90_000);
 });
