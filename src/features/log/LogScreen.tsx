@@ -16,6 +16,7 @@ import { useActiveCruise, useObservations } from './logData';
 import { ObservationForm } from './ObservationForm';
 import { ObservationList } from './ObservationList';
 import { StartScreen } from './StartScreen';
+import { TrackImportPanel } from './TrackImportPanel';
 import { useTrackPosition } from './trackPosition';
 import { openEdit, useDraftAutosave } from './useDraftAutosave';
 import { useNow } from './useNow';
@@ -100,6 +101,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
         {historyOf && <HistoryPanel cruise={cruise} observationId={historyOf} onClose={() => setHistoryOf(null)} />}
       </div>
       <GpsPanel cruiseId={cruise.id} />
+      <TrackImportPanel cruiseId={cruise.id} />
     </section>
   );
 }
