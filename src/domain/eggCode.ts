@@ -5,7 +5,10 @@
 //   So Sa Sb Sc Sd  stage of a trace of thicker ice, the three stages thickest first, and the
 //               stage of any remaining thinner ice
 //   Fa Fb Fc    form (floe size) of Sa Sb Sc
-// Where only one ice type is present, Ca is left blank (its concentration is Ct).
+// Where only one ice type is present, Ca is left blank (its concentration is Ct); a category with
+// a remaining stage Sd is two ice types, so Ca is written.
+// The egg code holds three categories; a fourth and thinner one (from a draft, a preview or a
+// file before the rules refuse it) becomes Sd, the stage of the remaining ice, never dropped.
 // Dotted stage codes (1. medium first-year ... 9. multi-year) are written with their dot here.
 // When reading, the chart convention that a dot also applies to every code to its left can be
 // applied (`dotRule: 'inherit'`), see readEggCode.
@@ -13,7 +16,7 @@
 import type { FloeSizeKey, IceCategory, Observation, StageKey } from './model.ts';
 import { FLOE_SIZE_KEYS, STAGE_KEYS } from './model.ts';
 import { FLOE_SIZES, STAGES } from './nomenclature.ts';
-import { sortCategoriesThickestFirst } from './ordering.ts';
+import { isStageSurelyThicker, sortCategoriesThickestFirst } from './ordering.ts';
 import { err, ok, type Result } from './result.ts';
 
 /** The egg code fields as text; an empty string is a blank field. */
@@ -47,21 +50,50 @@ const blankCode = (): EggCode => ({
 export type EggCodeInput = Pick<Observation, 'totalConcentration' | 'categories'> &
   Partial<Pick<Observation, 'traceStage' | 'remainingStage'>>;
 
+/** The categories the egg code shows (Sa, Sb, Sc) and its remaining stage (Sd). */
+export interface EggCodeLayout {
+  /** At most three, thickest first. */
+  categories: IceCategory[];
+  remainingStage?: StageKey;
+  /** Categories beyond the third, thickest first: their stages are folded into Sd. */
+  folded: IceCategory[];
+}
+
+/**
+ * Thickest first, three categories at most; whatever is beyond the third is remaining ice, and Sd
+ * is the thickest stage of the remaining ice (a fourth category, or the recorded Sd if that is
+ * surely thicker).
+ */
+export function eggCodeLayout(obs: Pick<EggCodeInput, 'categories' | 'remainingStage'>): EggCodeLayout {
+  const sorted = sortCategoriesThickestFirst(obs.categories).categories;
+  const categories = sorted.slice(0, 3);
+  const folded = sorted.slice(3);
+  const out: EggCodeLayout = { categories, folded };
+  const fourth = folded[0];
+  if (fourth && obs.remainingStage && isStageSurelyThicker(obs.remainingStage, fourth.stage)) out.remainingStage = obs.remainingStage;
+  else if (fourth) out.remainingStage = fourth.stage;
+  else if (obs.remainingStage) out.remainingStage = obs.remainingStage;
+  return out;
+}
+
 /**
  * The egg code of an observation. Categories are put thickest first (whatever order they were
- * entered in); only the first three are used.
+ * entered in); a fourth and thinner category becomes Sd (see eggCodeLayout).
  */
 export function deriveEggCode(obs: EggCodeInput): EggCode {
   const code = blankCode();
   code.ct = obs.totalConcentration === null ? EGG_UNKNOWN : String(obs.totalConcentration);
-  const cats = sortCategoriesThickestFirst(obs.categories).categories.slice(0, 3);
+  const layout = eggCodeLayout(obs);
+  const cats = layout.categories;
+  // Ca is blank only for a single ice type: one category and no remaining stage.
+  const writePartials = cats.length > 1 || layout.remainingStage !== undefined;
   cats.forEach((c, i) => {
     code[S_FIELDS[i] as EggCodeField] = stageSymbol(c.stage);
     code[F_FIELDS[i] as EggCodeField] = c.floeSize ? (FLOE_SIZES[c.floeSize] as (typeof FLOE_SIZES)[FloeSizeKey] | undefined)?.eggCode ?? EGG_UNKNOWN : '';
-    if (cats.length > 1) code[C_FIELDS[i] as EggCodeField] = String(c.partialConcentration);
+    if (writePartials) code[C_FIELDS[i] as EggCodeField] = String(c.partialConcentration);
   });
   if (obs.traceStage) code.so = stageSymbol(obs.traceStage);
-  if (obs.remainingStage) code.sd = stageSymbol(obs.remainingStage);
+  if (layout.remainingStage) code.sd = stageSymbol(layout.remainingStage);
   return code;
 }
 
@@ -195,6 +227,8 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
 
   const categories: EggCodeCategoryReading[] = [];
   const present = S_FIELDS.filter((f) => code[f] !== '').length;
+  // A single ice type: one of Sa..Sc and no Sd. With Sd there are two, and Ca is written.
+  const single = present === 1 && stages[4] === undefined;
   for (let i = 0; i < 3; i++) {
     const sf = S_FIELDS[i] ?? 'sa';
     const cf = C_FIELDS[i] ?? 'ca';
@@ -207,11 +241,15 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
     }
     if (categories.length !== i) return err(`${sf} is set but the stage before it is blank`);
     let partial: number | null;
-    if (present === 1) {
+    if (single) {
       if (code[cf] !== '') return err(`${cf} "${code[cf]}" must be blank for a single ice type (its concentration is Ct)`);
       partial = total.value;
     } else {
-      if (code[cf] === '') return err(`${cf} is blank but ${present} ice types are given: each needs its partial concentration`);
+      if (code[cf] === '') {
+        return err(present === 1
+          ? `${cf} is blank but Sd is given: with a remaining stage there are two ice types, so ${cf} needs its partial concentration`
+          : `${cf} is blank but ${present} ice types are given: each needs its partial concentration`);
+      }
       const p = parseConcentration(cf, code[cf], false);
       if (!p.ok) return p;
       partial = p.value;

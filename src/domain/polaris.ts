@@ -260,9 +260,11 @@ export function polarisIceType(stage: StageKey, thicknessCm?: number): IceTypeMa
 export type PolarisObservationOptions = RivOptions;
 
 /**
- * POLARIS for an observation. Shares: a single category takes the total concentration; with
- * several, any part of the total the partial concentrations leave unassigned goes to the remaining
- * stage (Sd) if recorded, else to the most severe category present (noted). A trace (So) is less
+ * POLARIS for an observation. Shares: a single category with no remaining stage (Sd) takes the
+ * total concentration (the egg code's blank Ca). Otherwise each category takes its partial
+ * concentration and any part of the total they leave unassigned goes to the remaining stage (Sd)
+ * if recorded, else to the most severe category present (noted): with one category and an Sd
+ * there are two ice types, and the share not covered by Ca belongs to Sd. A trace (So) is less
  * than 1/10 and adds nothing. Needs a total concentration or at least one category.
  */
 export function polarisForObservation(
@@ -278,12 +280,15 @@ export function polarisForObservation(
   for (const { m } of mapped) if (m.note) notes.push(m.note);
 
   const shares: RegimeShare[] = [];
-  if (mapped.length === 1 && mapped[0]) {
+  if (mapped.length === 1 && mapped[0] && !obs.remainingStage) {
     shares.push({ iceType: mapped[0].m.iceType, tenths: total ?? mapped[0].c.partialConcentration });
   } else {
     for (const { c, m } of mapped) shares.push({ iceType: m.iceType, tenths: c.partialConcentration });
     const assigned = shares.reduce((a, s) => a + s.tenths, 0);
     const unassigned = total === null ? 0 : total - assigned;
+    if (unassigned < 0 && total !== null) {
+      notes.push(`The partial concentrations add up to ${round(assigned)}/10, more than the total ${total}/10: the partial concentrations are used.`);
+    }
     if (unassigned > 0) {
       if (obs.remainingStage) {
         const m = polarisIceType(obs.remainingStage);
