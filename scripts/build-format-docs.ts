@@ -7,7 +7,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { demoBundle } from '../src/cli/commands/demo';
-import { FLOE_SIZES, SNOW_LABELS, OPEN_WATER_LABELS, STAGES, concentrationTerm } from '../src/domain/nomenclature';
+import { FLOE_SIZES, SNOW_LABELS, OPEN_WATER_LABELS, STAGES, concentrationTerm, sigrid3Concentration } from '../src/domain/nomenclature';
 import { FLOE_SIZE_KEYS, OPEN_WATER_KINDS, SNOW_KINDS, STAGE_KEYS } from '../src/domain/model';
 import { concentrationCode } from '../src/format/codes';
 import { writeCsv } from '../src/format/csv';
@@ -143,9 +143,10 @@ function formatDoc(): string {
     '| tenths | WMO term | SIGRID-3 |',
     '|---|---|---|',
     ...Array.from({ length: 11 }, (_, t) => `| ${t} | ${concentrationTerm(t).label} | ${concentrationCode(t)} |`),
+    `| 0 with a trace stage or a category (total only) | ${concentrationTerm(0, { icePresent: true }).label} | ${sigrid3Concentration(0, { trace: true })} |`,
     `| null (not judged) | | ${concentrationCode(null)} |`,
     '',
-    'Whole tenths cannot tell "ice free" from "less than 1/10"; 0 is written as SIGRID-3 `00`.',
+    'Whole tenths cannot tell "ice free" from "less than 1/10": a total of 0 is `00` (ice free), and `01` (less than 1/10, open water) when the observation notes some ice (`traceStage` or a category). Readers also accept `00` there, as files written before this rule have it.',
     '',
     '### Snow (`snowKind`, our own plain-language kinds) and open water (`openWater.kind`, WMO terms)',
     '',

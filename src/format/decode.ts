@@ -2,7 +2,7 @@
 // cannot express (codes agree with terms, references resolve, revisions are consistent, dates
 // exist on the calendar). Each problem names its JSON path.
 import type { IceCategory, Observation, TrackPoint } from '../domain/model';
-import { concentrationCode, floeSizeCode, stageCode } from './codes';
+import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
 import type { Problem } from './problems';
 import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV1, PhotoMeta } from './types';
 
@@ -33,8 +33,10 @@ export function decodeVersion(v: FileObservationVersion | FileObservation): Obse
 }
 
 function checkCodes(v: FileObservationVersion, path: string, out: Problem[]) {
-  const want = concentrationCode(v.totalConcentration);
-  if (v.totalConcentrationSigrid3 !== want) {
+  const want = totalConcentrationCode(v);
+  // Files written before 0/10 with ice noted was coded `01` carry `00` there: still readable.
+  const legacyTrace = want === '01' && v.totalConcentrationSigrid3 === concentrationCode(0);
+  if (v.totalConcentrationSigrid3 !== want && !legacyTrace) {
     out.push({ path: `${path}.totalConcentrationSigrid3`, message: `is "${v.totalConcentrationSigrid3}" but the total concentration ${v.totalConcentration ?? 'null'} has code "${want}"` });
   }
   v.categories.forEach((c, i) => {

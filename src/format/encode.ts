@@ -1,7 +1,8 @@
 // Model -> file: a LogBundle becomes a version-1 log file (SIGRID-3 codes added beside the WMO
 // terms, revisions grouped under their observation, the track as rows).
 import type { FloeSizeKey, IceCategory, Observation, StageKey, TrackPoint } from '../domain/model';
-import { concentrationCode, floeSizeCode, stageCode } from './codes';
+import { sigrid3Concentration } from '../domain/nomenclature';
+import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
 import {
   FORMAT_NAME,
   SCHEMA_V1_PATH,
@@ -37,7 +38,7 @@ export function encodeCategory(c: IceCategory): FileCategory {
 export function encodeVersion(o: Observation): FileObservationVersion {
   const out: FileObservationVersion = {
     ...o,
-    totalConcentrationSigrid3: concentrationCode(o.totalConcentration),
+    totalConcentrationSigrid3: totalConcentrationCode(o),
     categories: o.categories.map(encodeCategory),
   };
   if (o.traceStage !== undefined) out.traceStageSigrid3 = stageCode(o.traceStage);
@@ -187,7 +188,18 @@ export function writeLogJson(file: LogFileV1): string[] {
 // always escaped), and these keys exist only where the model has them, so the replacement
 // touches exactly the coded fields. test/format/roundtrip.test.ts checks the result against
 // encodeVersion for random observations.
-const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+)|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
+// A total of 0/10 with ice noted codes as `01`, which the key alone cannot tell: markTrace puts the
+// string TRACE_ZERO (JSON `"\u0001"`, which no number field can hold) in its place first.
+const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+|"\\u0001")|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
+const TRACE_ZERO = '\u0001';
+const TRACE_ZERO_JSON = '"\\u0001"';
+
+/** The version with its total replaced by TRACE_ZERO where the total codes as `01`. */
+function markTrace(o: Observation): Observation {
+  if (o.totalConcentration !== 0 || totalConcentrationCode(o) === concentrationCode(0)) return o;
+  // The marker is a string in a number's place only on its way through JSON.stringify.
+  return { ...o, totalConcentration: TRACE_ZERO as unknown as number };
+}
 
 // Distinct matches are few (a key and one of a few dozen terms), so replacements are cached.
 const codedCache = new Map<string, string>();
@@ -195,7 +207,8 @@ const codedCache = new Map<string, string>();
 function codedReplacement(m: string, concKey?: string, concValue?: string, termKey?: string, termValue?: string): string {
   let out = codedCache.get(m);
   if (out === undefined) {
-    if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
+    if (concValue === TRACE_ZERO_JSON) out = `"${concKey}":0,"${concKey}Sigrid3":"${sigrid3Concentration(0, { trace: true })}"`;
+    else if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
     else out = `${m},"${termKey}Sigrid3":"${termKey === 'floeSize' ? floeSizeCode(termValue as FloeSizeKey) : stageCode(termValue as StageKey)}"`;
     if (codedCache.size < 10_000) codedCache.set(m, out);
   }
@@ -208,7 +221,7 @@ function withCodes(json: string): string {
 
 /** One version of an observation as file JSON: the model's JSON with the codes beside the terms. */
 export function versionJson(o: Observation): string {
-  return withCodes(JSON.stringify(o));
+  return withCodes(JSON.stringify(markTrace(o)));
 }
 
 /**
@@ -233,10 +246,10 @@ export function exportLogJson(bundle: LogBundle, opts: EncodeOptions = {}): stri
   const entry = (o: Observation): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) => {
     const h = history.get(o.id);
     const c = conflicts.get(o.id);
-    if (!h && !c) return o;
-    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...o };
-    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision);
-    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1));
+    if (!h && !c) return markTrace(o);
+    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...markTrace(o) };
+    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision).map(markTrace);
+    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1)).map(markTrace);
     return out;
   };
   const observationLines = (start: number, end: number) => {

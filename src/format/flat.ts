@@ -3,7 +3,7 @@
 // first, as the egg code orders them), WMO terms with SIGRID-3 codes beside them, UTC times,
 // decimal degrees. Names carry their units so a spreadsheet or R user need not look them up.
 import type { Cruise, IceCategory, Observation } from '../domain/model';
-import { concentrationCode, concentrationTermLabel, floeSizeCode, stageCode, stageTermLabel } from './codes';
+import { concentrationCode, floeSizeCode, stageCode, stageTermLabel, totalConcentrationCode, totalConcentrationTermLabel } from './codes';
 
 export type Cell = string | number | boolean | null;
 
@@ -110,8 +110,8 @@ export function flatRow(o: Observation, ctx: FlatContext): Cell[] {
     o.observerId,
     ctx.initials.get(o.observerId) ?? null,
     o.totalConcentration,
-    concentrationCode(o.totalConcentration),
-    o.totalConcentration === null ? null : concentrationTermLabel(o.totalConcentration),
+    totalConcentrationCode(o),
+    o.totalConcentration === null ? null : totalConcentrationTermLabel(o),
     ...categoryCells(o.categories[0]),
     ...categoryCells(o.categories[1]),
     ...categoryCells(o.categories[2]),
