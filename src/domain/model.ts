@@ -30,11 +30,14 @@ export const STAGE_KEYS = [
 ] as const;
 export type StageKey = (typeof STAGE_KEYS)[number];
 
-/** Forms of ice by floe size (WMO-No. 259), plus fast ice and icebergs as the egg code has them. */
+/**
+ * Forms of ice by floe size (WMO-No. 259), plus fast ice, icebergs and growlers/floebergs as the
+ * egg code has them (one egg-code symbol, two SIGRID-3 codes: kept apart).
+ */
 export const FLOE_SIZE_KEYS = [
   'pancake', 'brash', 'small-ice-cake', 'ice-cake',
   'small-floe', 'medium-floe', 'big-floe', 'vast-floe', 'giant-floe',
-  'fast-ice', 'icebergs', 'undetermined',
+  'fast-ice', 'icebergs', 'growlers-floebergs', 'undetermined',
 ] as const;
 export type FloeSizeKey = (typeof FLOE_SIZE_KEYS)[number];
 

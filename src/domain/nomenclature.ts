@@ -106,7 +106,10 @@ export const FLOE_SIZES: Readonly<Record<FloeSizeKey, FloeSizeInfo>> = {
   'vast-floe': { key: 'vast-floe', label: 'Vast floe', minM: 2000, maxM: 10000, eggCode: '6', sigrid3: '06' },
   'giant-floe': { key: 'giant-floe', label: 'Giant floe', minM: 10000, maxM: null, eggCode: '7', sigrid3: '07' },
   'fast-ice': { key: 'fast-ice', label: 'Fast ice', minM: null, maxM: null, eggCode: '8', sigrid3: '08' },
-  icebergs: { key: 'icebergs', label: 'Icebergs, growlers or floebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '10' },
+  // The egg code has one form symbol (9) for ice of this kind; SIGRID-3 (WMO/TD-No. 1214) tells
+  // icebergs (10) from growlers and floebergs (09), so the observer chooses which.
+  icebergs: { key: 'icebergs', label: 'Icebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '10' },
+  'growlers-floebergs': { key: 'growlers-floebergs', label: 'Growlers or floebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '09' },
   undetermined: { key: 'undetermined', label: 'Undetermined or unknown', minM: null, maxM: null, eggCode: 'X', sigrid3: '99' },
 };
 
