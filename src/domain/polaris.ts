@@ -82,6 +82,32 @@ export function isVesselIceClass(s: string): s is VesselIceClass {
   return (VESSEL_ICE_CLASSES as readonly string[]).includes(s);
 }
 
+/** Letters and digits only, lower case: "IA Super", "ia-super" and "IASUPER" compare equal. */
+const classSpelling = (s: string): string => s.toLowerCase().replace(/[^a-z0-9]/g, '');
+
+/**
+ * Every accepted spelling of each class: our key, the circular's label (Table 1.3 writes "PC 5",
+ * "IA Super", "Not ice-strengthened") and the Finnish-Swedish rules' own "1A Super", "1A", "1B",
+ * "1C" (from memory of those rules).
+ */
+const CLASS_SPELLINGS: ReadonlyMap<string, VesselIceClass> = (() => {
+  const m = new Map<string, VesselIceClass>();
+  for (const c of VESSEL_ICE_CLASSES) {
+    m.set(classSpelling(c), c);
+    m.set(classSpelling(VESSEL_ICE_CLASS_LABELS[c]), c);
+    if (c.startsWith('I')) m.set(classSpelling(`1${c.slice(1)}`), c);
+  }
+  m.set('notstrengthened', 'none');
+  return m;
+})();
+
+/** A vessel ice class as people write it, any case, spaces or hyphens ("pc 5", "IA Super"). */
+export function parseVesselIceClass(text: string): Result<VesselIceClass> {
+  const found = CLASS_SPELLINGS.get(classSpelling(text));
+  if (found) return ok(found);
+  return err(`unknown ice class "${text}" (use one of ${VESSEL_ICE_CLASSES.map((c) => VESSEL_ICE_CLASS_LABELS[c]).join(', ')}; case, spaces and hyphens do not matter)`);
+}
+
 export function isPolarisIceType(s: string): s is PolarisIceType {
   return (POLARIS_ICE_TYPES as readonly string[]).includes(s);
 }
