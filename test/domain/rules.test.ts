@@ -180,19 +180,60 @@ describe('validateObservation', () => {
       expectFinding(weather({ salinityPsu: undefined, waterTempC: -2.0 }), 'water-below-freezing', 'weather.waterTempC', ['-1.92 °C', 'salinity 35 assumed']);
       expect(find(validateObservation(weather({ salinityPsu: undefined, waterTempC: -1.9 })), 'water-below-freezing')).toBeUndefined();
     });
-    it('impossible water temperature, salinity, air temperature', () => {
-      expectFinding(weather({ waterTempC: -5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-5 °C']);
-      expectFinding(weather({ salinityPsu: 60 }), 'salinity-out-of-range', 'weather.salinityPsu', ['60']);
-      expectFinding(weather({ salinityPsu: 2 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['2', '4-40']);
+    const codesOf = (w: Partial<NonNullable<Observation['weather']>>) => validateObservation(weather(w), cruise).map((f) => f.code);
+
+    it('air temperature beyond the world records is impossible (WMO Archive of Weather and Climate Extremes)', () => {
+      // WMO archive: lowest -89.2 °C (Vostok, 21 July 1983), highest 56.7 °C (Furnace Creek,
+      // 10 July 1913); the rule's bounds -90 and 57 sit just outside them.
       expectFinding(weather({ airTempC: -95 }), 'air-temp-out-of-range', 'weather.airTempC', ['-95 °C']);
-      expectFinding(weather({ airTempC: 30 }), 'air-temp-doubtful', 'weather.airTempC', ['30 °C']);
+      expectFinding(weather({ airTempC: -90.1 }), 'air-temp-out-of-range', 'weather.airTempC', ['-90.1 °C', 'recorded on Earth']);
+      expectFinding(weather({ airTempC: 57.1 }), 'air-temp-out-of-range', 'weather.airTempC', ['57.1 °C']);
+      expect(codesOf({ airTempC: -89.2 })).not.toContain('air-temp-out-of-range');
+      expect(codesOf({ airTempC: 56.7 })).not.toContain('air-temp-out-of-range');
     });
-    it('wind, visibility, cloud', () => {
+    it('air temperature below -60 °C or above 25 °C at sea in polar waters is doubtful (common practice, our own bounds)', () => {
+      expectFinding(weather({ airTempC: 30 }), 'air-temp-doubtful', 'weather.airTempC', ['30 °C', 'check the sign and unit']);
+      expectFinding(weather({ airTempC: -60.5 }), 'air-temp-doubtful', 'weather.airTempC', ['-60.5 °C']);
+      expect(codesOf({ airTempC: -60 })).not.toContain('air-temp-doubtful');
+      expect(codesOf({ airTempC: 25 })).not.toContain('air-temp-doubtful');
+    });
+    it('water temperature outside -3..40 °C is impossible at the sea surface', () => {
+      // Lower bound: below the freezing point of any sea water the UNESCO 1983 formula covers,
+      // Tf(S = 40, p = 0) = -0.0575x40 + 1.710523e-3x40^1.5 - 2.154996e-4x40^2 = -2.21 °C.
+      // Upper bound: above the warmest sea surfaces, about 35-36 °C in summer in the Persian Gulf
+      // (from memory).
+      expectFinding(weather({ waterTempC: -5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-5 °C', '-3 to 40 °C']);
+      expectFinding(weather({ waterTempC: -3.1 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-3.1 °C']);
+      expectFinding(weather({ waterTempC: 40.5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['40.5 °C']);
+      expect(codesOf({ waterTempC: -2.9 })).not.toContain('water-temp-out-of-range');
+      expect(codesOf({ waterTempC: 36 })).not.toContain('water-temp-out-of-range');
+    });
+    it('salinity outside 0-50 is refused (common practice: open-ocean surface water is about 32-37)', () => {
+      expectFinding(weather({ salinityPsu: 60 }), 'salinity-out-of-range', 'weather.salinityPsu', ['60', '0 to 50']);
+      expectFinding(weather({ salinityPsu: -0.5 }), 'salinity-out-of-range', 'weather.salinityPsu', ['-0.5']);
+      expect(codesOf({ salinityPsu: 50 })).not.toContain('salinity-out-of-range');
+    });
+    it('salinity outside 4-40, the range of the UNESCO 1983 freezing-point formula (Fofonoff and Millard 1983), is flagged', () => {
+      expectFinding(weather({ salinityPsu: 2 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['2', '4-40', 'UNESCO 1983']);
+      expectFinding(weather({ salinityPsu: 40.5 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['40.5']);
+      expect(codesOf({ salinityPsu: 4 })).not.toContain('salinity-outside-formula-range');
+      expect(codesOf({ salinityPsu: 40 })).not.toContain('salinity-outside-formula-range');
+    });
+    it('wind: negative speed is impossible; above 120 kn, far beyond force 12 (64 kn and more, Beaufort scale), doubtful', () => {
+      // The 120 kn bound is our own (common practice): a mean wind that far above hurricane force
+      // is more likely km/h or m/s typed as knots.
       expectFinding(weather({ windSpeedKn: -1 }), 'wind-out-of-range', 'weather.windSpeedKn', ['-1 kn']);
-      expectFinding(weather({ windSpeedKn: 150 }), 'wind-doubtful', 'weather.windSpeedKn', ['150 kn']);
+      expectFinding(weather({ windSpeedKn: 150 }), 'wind-doubtful', 'weather.windSpeedKn', ['150 kn', '64 kn']);
+      expectFinding(weather({ windSpeedKn: 120.5 }), 'wind-doubtful', 'weather.windSpeedKn', ['120.5 kn']);
+      expect(codesOf({ windSpeedKn: 120 })).not.toContain('wind-doubtful');
+      expect(codesOf({ windSpeedKn: 0 })).toEqual([]);
+    });
+    it('wind direction outside 0-360° true, negative visibility, cloud over 8 oktas (WMO-No. 306 code table 2700: 0-8 oktas)', () => {
       expectFinding(weather({ windFromDeg: 400 }), 'wind-out-of-range', 'weather.windFromDeg', ['400°']);
+      expect(codesOf({ windFromDeg: 360 })).toEqual([]);
       expectFinding(weather({ visibilityKm: -1 }), 'visibility-out-of-range', 'weather.visibilityKm', ['-1 km']);
       expectFinding(weather({ cloudOktas: 9 }), 'cloud-out-of-range', 'weather.cloudOktas', ['9']);
+      expect(codesOf({ cloudOktas: 8 })).toEqual([]);
     });
   });
 

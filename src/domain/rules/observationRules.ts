@@ -250,6 +250,8 @@ const weatherRule: ObservationRule = {
     let salinityForCheck = DEFAULT_SALINITY_PSU;
     let salinityMeasured = false;
     if (isNum(w.salinityPsu)) {
+      // 0-50: open-ocean surface water is about 32-37 (common practice); 4-40 is the range of the
+      // UNESCO 1983 freezing-point formula (Fofonoff and Millard 1983).
       if (!Number.isFinite(w.salinityPsu) || w.salinityPsu < 0 || w.salinityPsu > 50) {
         out.push(finding('salinity-out-of-range', 'weather.salinityPsu', `Salinity ${fmt(w.salinityPsu)} is outside 0 to 50`));
       } else {
@@ -262,6 +264,8 @@ const weatherRule: ObservationRule = {
       }
     }
     if (isNum(w.waterTempC)) {
+      // -3 °C is below the freezing point of any sea water the UNESCO 1983 formula covers
+      // (Tf(40, 0) = -2.21 °C); 40 °C is above the warmest sea surfaces (about 36 °C, from memory).
       if (!Number.isFinite(w.waterTempC) || w.waterTempC < -3 || w.waterTempC > 40) {
         out.push(finding('water-temp-out-of-range', 'weather.waterTempC', `Water temperature ${fmt(w.waterTempC)} °C is impossible for sea water at the surface (-3 to 40 °C)`));
       } else {
@@ -273,6 +277,8 @@ const weatherRule: ObservationRule = {
       }
     }
     if (isNum(w.windSpeedKn)) {
+      // Force 12 on the Beaufort scale is 64 kn and more; 120 kn is our own bound for a typed unit
+      // mistake (km/h or m/s as knots), common practice.
       if (!Number.isFinite(w.windSpeedKn) || w.windSpeedKn < 0) out.push(finding('wind-out-of-range', 'weather.windSpeedKn', `Wind speed ${fmt(w.windSpeedKn)} kn is negative`));
       else if (w.windSpeedKn > 120) out.push(finding('wind-doubtful', 'weather.windSpeedKn', `Wind speed ${fmt(w.windSpeedKn)} kn is far above hurricane force (64 kn): check the unit`));
     }
