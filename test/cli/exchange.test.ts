@@ -101,6 +101,58 @@ describe('summary', { timeout: 60_000 }, () => {
   });
 });
 
+// IMO MSC.1/Circ.1519: POLARIS output is decision support, so every POLARIS figure travels with
+// its cautions, in machine output too (as `polaris --json` does). The thickness with ridges is an
+// estimate (Timco and Burden 1997 ratios from the sail height) and the ridged share a visual one:
+// the JSON says so for every ridge-based figure, so a script cannot take them for measurements.
+describe('summary --json: cautions and estimates', { timeout: 60_000 }, () => {
+  type Flag = { path: string; estimate: boolean; basis: string };
+  const summaryJson = async () => JSON.parse((await run('summary', demoFile, '--json')).out.at(-1) as string) as Record<string, unknown> & { cautions: string[]; estimates: Flag[] };
+
+  it('carries a cautions array with the POLARIS cautions of `polaris --json` and the map caution', async () => {
+    const s = await summaryJson();
+    const p = JSON.parse((await run('polaris', '--class', 'PC5', '--ice', '5:thick-first-year', '--json')).out.at(-1) as string) as { cautions: string[] };
+    expect(Array.isArray(s.cautions)).toBe(true);
+    expect(p.cautions.length).toBeGreaterThan(0);
+    for (const c of p.cautions) expect(s.cautions).toContain(c);
+    expect(s.cautions.join(' ')).toContain('not a navigation chart');
+    expect(s.cautions.join(' ')).toContain('Timco and Burden 1997');
+  });
+
+  it('flags every ridge-based figure as an estimate, by its path, with its basis', async () => {
+    const s = await summaryJson();
+    const ridgePaths: string[] = [];
+    const walk = (v: unknown, path: string) => {
+      if (v === null || typeof v !== 'object') return;
+      for (const [k, x] of Object.entries(v)) {
+        const p = path ? `${path}.${k}` : k;
+        if (/ridge/i.test(k)) ridgePaths.push(p);
+        if (!Array.isArray(x) && p !== 'estimates' && p !== 'cautions') walk(x, p);
+      }
+    };
+    walk(s, '');
+    expect(ridgePaths).toContain('review.ice.meanThicknessWithRidgesCm');
+    const flagged = new Map(s.estimates.map((e) => [e.path, e]));
+    for (const p of ridgePaths) {
+      expect(flagged.get(p), p).toMatchObject({ estimate: true });
+      expect(flagged.get(p)?.basis, p).toMatch(/^Estimate: /);
+    }
+    expect(flagged.get('review.ice.meanThicknessWithRidgesCm')?.basis).toContain('Timco and Burden (1997)');
+    // Every flagged path names a figure that is really there.
+    for (const e of s.estimates) {
+      const value = e.path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], s);
+      expect(value, e.path).not.toBeUndefined();
+    }
+  });
+
+  it('the text form ends with the cautions too', async () => {
+    const text = (await run('summary', demoFile)).out.join('\n');
+    expect(text).toContain('Cautions:');
+    expect(text).toContain('decision support only (IMO MSC.1/Circ.1519)');
+    expect(text).toMatch(/Thickness .* with ridges \(estimate\)/);
+  });
+});
+
 describe('convert', { timeout: 60_000 }, () => {
   it('to csv, geojson and ndjson', async () => {
     for (const to of ['csv', 'geojson', 'ndjson']) expect((await run('convert', demoFile, '--to', to, '-o', join(dir, `demo.${to}`))).code).toBe(0);

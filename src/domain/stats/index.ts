@@ -13,3 +13,4 @@ export { buildDistanceTimeline, distanceAt, distanceBetween, type DistanceTimeli
 export { rioForObservation, type RioOnly } from './rio.ts';
 export { collectFindings, reviewFor, withFindingReview, withoutFindingReview, type ReviewFinding } from './findings.ts';
 export { equivalentThicknessCm } from './ridgeEstimate.ts';
+export { MAP_CAUTION, REVIEW_CAUTIONS, RIDGE_ESTIMATE_CAUTION, RIDGE_FIGURE_ESTIMATES, VISUAL_ESTIMATE_CAUTION, type RidgeFigure } from './cautions.ts';

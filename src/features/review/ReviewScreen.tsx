@@ -3,8 +3,8 @@
 // src/domain/stats; this screen only lays them out.
 import { useId, useMemo, useState } from 'react';
 import type { Cruise, Observation, TrackPoint } from '../../domain/model';
-import { POLARIS_CAUTIONS, VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
-import { collectFindings, reviewCruise } from '../../domain/stats';
+import { VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
+import { REVIEW_CAUTIONS, collectFindings, reviewCruise } from '../../domain/stats';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
@@ -78,12 +78,9 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
       <section aria-labelledby="review-cautions-title" className="review-section review-cautions">
         <h3 id="review-cautions-title">Cautions</h3>
         <ul>
-          <li>The map and positions in this report are an overview of observed ice, not a navigation chart.</li>
-          {POLARIS_CAUTIONS.map((c) => (
+          {REVIEW_CAUTIONS.map((c) => (
             <li key={c}>{c}</li>
           ))}
-          <li>Thickness with ridges is an estimate from the sail height (keel and area ratios of Timco and Burden 1997).</li>
-          <li>Concentrations, stages and thicknesses are visual estimates from the bridge.</li>
         </ul>
       </section>
     </div>
