@@ -169,6 +169,18 @@ describe('validateObservation', () => {
     });
   });
 
+  describe('remaining stage (Sd) with no share', () => {
+    // WMO-No. 259 (egg code): Sd is the stage of the ice the partial concentrations leave of Ct.
+    it('fires when the partials already make up Ct', () => {
+      const o = observation({ totalConcentration: 8, remainingStage: 'new', categories: [{ partialConcentration: 8, stage: 'thick-first-year' }] });
+      expectFinding(o, 'remaining-without-share', 'remainingStage', ['new ice', 'total 8/10']);
+    });
+    it('does not fire when Sd has the rest (Ct 9, Ca 5)', () => {
+      const o = observation({ totalConcentration: 9, remainingStage: 'grey', categories: [{ partialConcentration: 5, stage: 'thick-first-year' }] });
+      expect(find(validateObservation(o, cruise), 'remaining-without-share')).toBeUndefined();
+    });
+  });
+
   describe('weather', () => {
     const weather = (w: Partial<NonNullable<Observation['weather']>>) => observation({ weather: { ...observation().weather, ...w } });
     it('water below the UNESCO 1983 freezing point: -1.87 °C at S = 34.2 (UNESCO 1983 formula)', () => {

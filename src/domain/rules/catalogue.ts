@@ -43,6 +43,7 @@ export const FINDING_CODES = {
   'snow-depth-without-snow': o('warning', 'Snow depth given with "no snow"'),
   'trace-not-thicker': o('warning', 'Trace stage (So) is not thicker than the thickest category'),
   'remaining-not-thinner': o('warning', 'Remaining stage (Sd) is not thinner than the thinnest category'),
+  'remaining-without-share': o('warning', 'Remaining stage (Sd) given but the partial concentrations already make up the total'),
   'position-missing': o('warning', 'No position'),
   'position-invalid': o('error', 'Position outside WGS 84 latitude/longitude ranges'),
   'position-null-island': o('warning', 'Position is exactly 0°, 0°'),

@@ -91,6 +91,9 @@ const concentrationRule: ObservationRule = {
         out.push(finding('partials-exceed-total', 'categories', `Partial concentrations add up to ${fmt(sum)}/10, more than the total ${total}/10`));
       } else if (cats.length > 0 && sum < total && !obs.remainingStage) {
         out.push(finding('partials-below-total', 'categories', `Partial concentrations add up to ${fmt(sum)}/10, less than the total ${total}/10: give the rest a category or a remaining stage`));
+      } else if (cats.length > 0 && sum === total && obs.remainingStage && knownStage(obs.remainingStage)) {
+        // Sd is the stage of the ice the partials leave of Ct (WMO-No. 259 egg code): here none.
+        out.push(finding('remaining-without-share', 'remainingStage', `Remaining stage ${STAGES[obs.remainingStage].label.toLowerCase()} is given but the partial concentrations already make up the total ${total}/10: lower a partial to leave Sd its share, or remove the remaining stage`));
       }
       if (total > 0 && cats.length === 0) out.push(finding('categories-missing', 'categories', `Total concentration ${total}/10 but no ice category described`));
     }

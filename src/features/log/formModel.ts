@@ -118,7 +118,7 @@ function readCategory(
   const partialConcentration = partial ?? (single ? total : undefined);
   if (partialConcentration === undefined) {
     if (c.partial.trim() === '') {
-      findings.push(inputError(`${p}.partialConcentration`, `Ice type ${letter}: give its concentration in tenths (needed with more than one ice type).`));
+      findings.push(inputError(`${p}.partialConcentration`, `Ice type ${letter}: give its concentration in tenths (needed with more than one ice type, a remaining stage counts as one).`));
     }
     return null;
   }
@@ -169,8 +169,10 @@ export function readDraft(draft: ObservationDraft, ctx: DraftContext): DraftRead
   const total = readNumber(draft.total, 'totalConcentration', 'Total concentration', findings, { integer: true });
   const filled = filledCategories(draft);
   const categories: IceCategory[] = [];
+  // A single ice type takes Ct; one category with a remaining stage (Sd) is two ice types.
+  const single = filled.length === 1 && draft.remainingStage === '';
   filled.forEach((c, i) => {
-    const cat = readCategory(c, i, filled.length === 1, total, findings);
+    const cat = readCategory(c, i, single, total, findings);
     if (cat) categories.push(cat);
   });
 
