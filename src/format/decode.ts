@@ -1,10 +1,10 @@
-// File -> model: a schema-valid version-1 log becomes a LogBundle, after the checks a schema
+// File -> model: a schema-valid version-2 log becomes a LogBundle, after the checks a schema
 // cannot express (codes agree with terms, references resolve, revisions are consistent, dates
 // exist on the calendar). Each problem names its JSON path.
 import type { IceCategory, Observation, TrackPoint } from '../domain/model';
 import { concentrationCode, floeSizeCode, stageCode } from './codes';
 import type { Problem } from './problems';
-import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV1, PhotoMeta } from './types';
+import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV2, PhotoMeta } from './types';
 
 /** True when an ISO 8601 UTC string that matched the schema's pattern names a real instant. */
 export function isRealUtcTime(s: string): boolean {
@@ -70,7 +70,7 @@ function checkTimes(v: FileObservationVersion, path: string, out: Problem[]) {
 }
 
 /** Checks a schema-valid file and turns it into model objects. Problems go to `out`. */
-export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
+export function decodeLog(file: LogFileV2, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
   const cruiseId = file.cruise.id;
   for (const [k, v] of [['exportedAt', file.exportedAt], ['cruise.createdAt', file.cruise.createdAt], ['cruise.updatedAt', file.cruise.updatedAt]] as const) {
     if (!isRealUtcTime(v)) out.push({ path: `$.${k}`, message: `"${v}" is not a date on the calendar` });

@@ -5,19 +5,19 @@ import {
   FLOE_SIZE_KEYS,
   OPEN_WATER_KINDS,
   POSITION_SOURCES,
-  SNOW_KINDS,
   STAGE_KEYS,
   VESSEL_ICE_CLASSES,
 } from '../../domain/model';
+import { LEGACY_SNOW_KINDS } from '../../domain/legacyIceTypes';
 import { CONCENTRATION_CODE_LIST, FLOE_SIZE_CODE_LIST, STAGE_CODE_LIST } from '../codes';
 import { LIMITS } from '../limits';
 import { FORMAT_NAME, SCHEMA_V1_PATH, TRACK_COLUMNS, UNITS_V1 } from '../types';
 import { array, constant, id, int, isoUtc, nullable, num, object, oneOf, text, type Schema } from './helpers';
 
-const tenths = (description: string): Schema => int(0, 10, `${description}, in tenths (0-10)`);
-const stage = (description: string) => oneOf(STAGE_KEYS, `${description}: a stage of development (WMO-No. 259)`);
-const stageCode = (description: string) => oneOf(STAGE_CODE_LIST, `${description}: SIGRID-3 stage code`);
-const concentrationCode = (description: string) => oneOf(CONCENTRATION_CODE_LIST, `${description}: SIGRID-3 concentration code`);
+export const tenths = (description: string): Schema => int(0, 10, `${description}, in tenths (0-10)`);
+export const stage = (description: string) => oneOf(STAGE_KEYS, `${description}: a stage of development (WMO-No. 259)`);
+export const stageCode = (description: string) => oneOf(STAGE_CODE_LIST, `${description}: SIGRID-3 stage code`);
+export const concentrationCode = (description: string) => oneOf(CONCENTRATION_CODE_LIST, `${description}: SIGRID-3 concentration code`);
 
 const category = object(
   'One ice type of the observation, a column of the egg code; thickest first.',
@@ -32,7 +32,7 @@ const category = object(
     ridgedTenths: tenths('Share of this ice type that is ridged'),
     raftedTenths: tenths('Share of this ice type that is rafted'),
     sailHeightM: num(0, 30, 'Typical ridge sail height above the waterline, metres'),
-    snowKind: oneOf(SNOW_KINDS, 'Snow on this ice type'),
+    snowKind: oneOf(LEGACY_SNOW_KINDS, 'Snow on this ice type'),
     snowDepthCm: num(0, 500, 'Snow depth, centimetres'),
   },
   ['partialConcentration', 'partialConcentrationSigrid3', 'stage', 'stageSigrid3'],
