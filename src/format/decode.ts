@@ -19,17 +19,16 @@ function decodeCategory(c: FileCategory): IceCategory {
   return rest;
 }
 
+const DROPPED_KEYS = new Set(['totalConcentrationSigrid3', 'traceStageSigrid3', 'remainingStageSigrid3', 'history', 'conflicts']);
+
+/** The model object of one version; keys keep the file's order, so an export writes them back alike. */
 export function decodeVersion(v: FileObservationVersion | FileObservation): Observation {
-  const {
-    totalConcentrationSigrid3: _t,
-    traceStageSigrid3: _ts,
-    remainingStageSigrid3: _rs,
-    categories,
-    history: _h,
-    conflicts: _c,
-    ...rest
-  } = v as FileObservation;
-  return { ...rest, categories: categories.map(decodeCategory) };
+  const out: Record<string, unknown> = {};
+  for (const [k, x] of Object.entries(v)) {
+    if (DROPPED_KEYS.has(k)) continue;
+    out[k] = k === 'categories' ? (x as FileCategory[]).map(decodeCategory) : x;
+  }
+  return out as unknown as Observation;
 }
 
 function checkCodes(v: FileObservationVersion, path: string, out: Problem[]) {

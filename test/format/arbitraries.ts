@@ -248,6 +248,8 @@ export function sampleBundle(): LogBundle {
   };
   delete second.traceStage;
   delete second.weather;
+  delete second.deformation;
+  delete second.snow;
   const history: Observation[] = [
     {
       ...base,
