@@ -2,6 +2,7 @@
 // edited: a change is a new entry with a higher number, its full `stores` and, when existing
 // rows must change shape, an `upgrade` function. See docs/dev/db.md.
 import type { Transaction } from 'dexie';
+import { upgradeToIceTypeGroups } from './upgradeIceTypes';
 
 export interface SchemaVersion {
   version: number;
@@ -47,6 +48,23 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       meta: 'key',
       conflicts: 'id, observationId, cruiseId',
     },
+  },
+  {
+    version: 3,
+    note: 'log format 2 layout: deformation and snow of each ice type move into groups of their own (observations, revisions, conflicts and drafts rewritten; old snow kinds mapped or kept in the notes)',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: '[cruiseId+time]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+    },
+    upgrade: upgradeToIceTypeGroups,
+    rewrites: ['observations', 'revisions', 'conflicts', 'drafts'],
   },
 ];
 

@@ -3,6 +3,7 @@
 // these checks only guard the shape the indexes and the other layers rely on.
 import {
   FLOE_SIZE_KEYS,
+  ICE_TYPE_LETTERS,
   POSITION_SOURCES,
   STAGE_KEYS,
   VESSEL_ICE_CLASSES,
@@ -72,6 +73,17 @@ export function checkObservation(o: ObservationInput): void {
     if (cat.floeSize !== undefined) c.oneOf(`categories.${i}.floeSize`, cat.floeSize, FLOE_SIZE_KEYS);
     c.optionalNumber(`categories.${i}.thicknessCm`, cat.thicknessCm, 0, 10_000);
   });
+  // Deformation and snow are records keyed by ice type letter.
+  for (const group of ['deformation', 'snow'] as const) {
+    const g: unknown = o[group];
+    if (g === undefined) continue;
+    if (typeof g !== 'object' || g === null || Array.isArray(g)) c.fail(group, 'must be a record keyed by ice type (a, b, c)');
+    for (const [k, entry] of Object.entries(g as Record<string, unknown>)) {
+      // A letter past the observation's ice types is the domain rules' to report (group-without-ice-type).
+      if (!(ICE_TYPE_LETTERS as readonly string[]).includes(k)) c.fail(`${group}.${k}`, 'is not an ice type letter (a, b, c)');
+      if (typeof entry !== 'object' || entry === null || Array.isArray(entry)) c.fail(`${group}.${k}`, 'must be a record');
+    }
+  }
   if (typeof o.notes !== 'string') c.fail('notes', 'must be text');
   if (!Array.isArray(o.photoIds) || o.photoIds.some((p) => typeof p !== 'string')) c.fail('photoIds', 'must be a list of photo ids');
 }

@@ -4,8 +4,8 @@
 //
 // Slots are multiples of the interval counted from 1970-01-01T00:00Z: with the usual 60 minutes
 // (or any interval that divides a day) they fall on the full hour, as hourly bridge
-// observations are customarily made (common practice, e.g. the ASPeCt protocol, Worby and
-// Allison 1999). An observation counts for the slot nearest to its time, so one made at 12:25
+// observations are customarily made (common practice; the terms observed are those of
+// WMO-No. 259, which sets no observing interval). An observation counts for the slot nearest to its time, so one made at 12:25
 // or 11:40 covers the 12:00 slot. A slot is missed when its window (half an interval either
 // side) has closed with no observation in it.
 import type { IsoUtc } from './model';

@@ -1,10 +1,10 @@
-// File -> model: a schema-valid version-1 log becomes a LogBundle, after the checks a schema
+// File -> model: a schema-valid version-2 log becomes a LogBundle, after the checks a schema
 // cannot express (codes agree with terms, references resolve, revisions are consistent, dates
 // exist on the calendar). Each problem names its JSON path.
 import type { IceCategory, Observation, TrackPoint } from '../domain/model';
 import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
 import type { Problem } from './problems';
-import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV1, PhotoMeta } from './types';
+import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV2, PhotoMeta } from './types';
 
 /** True when an ISO 8601 UTC string that matched the schema's pattern names a real instant. */
 export function isRealUtcTime(s: string): boolean {
@@ -19,17 +19,16 @@ function decodeCategory(c: FileCategory): IceCategory {
   return rest;
 }
 
+const DROPPED_KEYS = new Set(['totalConcentrationSigrid3', 'traceStageSigrid3', 'remainingStageSigrid3', 'history', 'conflicts']);
+
+/** The model object of one version; keys keep the file's order, so an export writes them back alike. */
 export function decodeVersion(v: FileObservationVersion | FileObservation): Observation {
-  const {
-    totalConcentrationSigrid3: _t,
-    traceStageSigrid3: _ts,
-    remainingStageSigrid3: _rs,
-    categories,
-    history: _h,
-    conflicts: _c,
-    ...rest
-  } = v as FileObservation;
-  return { ...rest, categories: categories.map(decodeCategory) };
+  const out: Record<string, unknown> = {};
+  for (const [k, x] of Object.entries(v)) {
+    if (DROPPED_KEYS.has(k)) continue;
+    out[k] = k === 'categories' ? (x as FileCategory[]).map(decodeCategory) : x;
+  }
+  return out as unknown as Observation;
 }
 
 function checkCodes(v: FileObservationVersion, path: string, out: Problem[]) {
@@ -72,7 +71,7 @@ function checkTimes(v: FileObservationVersion, path: string, out: Problem[]) {
 }
 
 /** Checks a schema-valid file and turns it into model objects. Problems go to `out`. */
-export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
+export function decodeLog(file: LogFileV2, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
   const cruiseId = file.cruise.id;
   for (const [k, v] of [['exportedAt', file.exportedAt], ['cruise.createdAt', file.cruise.createdAt], ['cruise.updatedAt', file.cruise.updatedAt]] as const) {
     if (!isRealUtcTime(v)) out.push({ path: `$.${k}`, message: `"${v}" is not a date on the calendar` });

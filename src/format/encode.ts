@@ -1,19 +1,19 @@
-// Model -> file: a LogBundle becomes a version-1 log file (SIGRID-3 codes added beside the WMO
+// Model -> file: a LogBundle becomes a version-2 log file (SIGRID-3 codes added beside the WMO
 // terms, revisions grouped under their observation, the track as rows).
 import type { FloeSizeKey, IceCategory, Observation, StageKey, TrackPoint } from '../domain/model';
 import { sigrid3Concentration } from '../domain/nomenclature';
 import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
 import {
   FORMAT_NAME,
-  SCHEMA_V1_PATH,
+  SCHEMA_V2_PATH,
   TRACK_COLUMNS,
-  UNITS_V1,
+  UNITS_V2,
   type FileCategory,
   type FileObservation,
   type FileObservationVersion,
   type FilePhoto,
   type LogBundle,
-  type LogFileV1,
+  type LogFileV2,
   type PhotoMeta,
   type TrackRow,
 } from './types';
@@ -68,7 +68,7 @@ function groupById(versions: Observation[]): Map<string, Observation[]> {
 
 const byTime = (a: { time: string }, b: { time: string }) => (a.time < b.time ? -1 : a.time > b.time ? 1 : 0);
 
-export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV1 {
+export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV2 {
   const { cruise } = bundle;
   const history = groupById(bundle.history);
   const conflicts = groupById(bundle.conflicts);
@@ -84,12 +84,12 @@ export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV
   const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
   const photos: FilePhoto[] = bundle.photos.map((p) => ({ ...p, archivePath: photoArchivePath(p) }));
   return {
-    $schema: SCHEMA_V1_PATH,
+    $schema: SCHEMA_V2_PATH,
     format: FORMAT_NAME,
-    formatVersion: 1,
+    formatVersion: 2,
     exportedAt: opts.exportedAt ?? new Date().toISOString(),
     generator: { ...GENERATOR },
-    units: { ...UNITS_V1 },
+    units: { ...UNITS_V2 },
     cruise: {
       id: cruise.id,
       name: cruise.name,
@@ -156,7 +156,7 @@ const trackLines = (rowAt: (i: number) => TrackRow) => (start: number, end: numb
 };
 
 function writeParts(
-  file: LogFileV1,
+  file: LogFileV2,
   observationCount: number,
   observationLines: (start: number, end: number) => string,
   trackCount: number,
@@ -178,7 +178,7 @@ function writeParts(
  * stream takes the parts as they are. One observation and one track row per line keeps the
  * file readable and makes line numbers in error messages point at a record.
  */
-export function writeLogJson(file: LogFileV1): string[] {
+export function writeLogJson(file: LogFileV2): string[] {
   const points = file.track.points;
   return writeParts(file, file.observations.length, eachLine(file.observations), points.length, (i) => points[i] as TrackRow);
 }

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { FLOE_SIZE_KEYS, OPEN_WATER_KINDS, POSITION_SOURCES, SNOW_KINDS, STAGE_KEYS } from '../../src/domain/model.ts';
+import { FLOE_SIZE_KEYS, OPEN_WATER_KINDS, POSITION_SOURCES, SNOW_COVERS, SNOW_WETNESS_CLASSES, STAGE_KEYS } from '../../src/domain/model.ts';
 import {
   CONCENTRATION_TERMS, DEFORMATION_KINDS, DEFORMATION_LABELS, FLOE_SIZES, OPEN_WATER_LABELS,
-  POSITION_SOURCE_LABELS, SNOW_LABELS, STAGES, concentrationTerm, sigrid3Concentration, sigrid3ConcentrationRange,
+  POSITION_SOURCE_LABELS, SNOW_COVER_LABELS, SNOW_WETNESS, STAGES, concentrationTerm, sigrid3Concentration, sigrid3ConcentrationRange,
 } from '../../src/domain/nomenclature.ts';
 
 describe('stages of development', () => {
@@ -195,11 +195,40 @@ describe('labels for the UI', () => {
     expect(DEFORMATION_LABELS.hummocked).toBe('Hummocked ice');
   });
 
-  it('every snow kind and open-water kind has a label', () => {
-    for (const k of SNOW_KINDS) expect(SNOW_LABELS[k]).toMatch(/\w/);
+  it('every snow cover and open-water kind has a label', () => {
+    for (const k of SNOW_COVERS) expect(SNOW_COVER_LABELS[k]).toMatch(/\w/);
     for (const k of OPEN_WATER_KINDS) expect(OPEN_WATER_LABELS[k]).toMatch(/\w/);
     for (const k of POSITION_SOURCES) expect(POSITION_SOURCE_LABELS[k]).toMatch(/\w/);
     // WMO-No. 259 term.
     expect(OPEN_WATER_LABELS.polynya).toBe('Polynya');
+  });
+});
+
+describe('snow wetness classes', () => {
+  // International Classification for Seasonal Snow on the Ground (Fierz, C., Armstrong, R.L.,
+  // Durand, Y., Etchevers, P., Greene, E., McClung, D.M., Nishimura, K., Satyawali, P.K. and
+  // Sokratov, S.A. 2009, IHP-VII Technical Documents in Hydrology No. 83, IACS Contribution No. 1,
+  // UNESCO-IHP, Paris), liquid water content: five classes, driest first, with the codes D, M, W,
+  // V, S. The volume ranges (0, 0-3, 3-8, 8-15, > 15 per cent) are the same as in its predecessor
+  // (Colbeck et al. 1990); checked against a published transcription of that table, the 2009
+  // values themselves are given from memory.
+  it('are the five classes of the classification, in order, with their codes', () => {
+    expect(SNOW_WETNESS_CLASSES).toEqual(['dry', 'moist', 'wet', 'very-wet', 'soaked']);
+    expect(SNOW_WETNESS_CLASSES.map((k) => SNOW_WETNESS[k].code)).toEqual(['D', 'M', 'W', 'V', 'S']);
+    expect(SNOW_WETNESS_CLASSES.map((k) => SNOW_WETNESS[k].label)).toEqual(['Dry', 'Moist', 'Wet', 'Very wet', 'Soaked']);
+  });
+
+  it('have the liquid-water ranges by volume, adjoining and increasing', () => {
+    expect(SNOW_WETNESS_CLASSES.map((k) => [SNOW_WETNESS[k].lwcMinPercent, SNOW_WETNESS[k].lwcMaxPercent])).toEqual([
+      [0, 0], [0, 3], [3, 8], [8, 15], [15, null],
+    ]);
+    for (let i = 2; i < SNOW_WETNESS_CLASSES.length; i++) {
+      const prev = SNOW_WETNESS[SNOW_WETNESS_CLASSES[i - 1]!];
+      expect(SNOW_WETNESS[SNOW_WETNESS_CLASSES[i]!].lwcMinPercent).toBe(prev.lwcMaxPercent);
+    }
+  });
+
+  it('snow cover is our own three steps (common practice, no source)', () => {
+    expect(SNOW_COVERS).toEqual(['none', 'partial', 'complete']);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Finding, IceCategory, Observation } from '../../src/domain/model.ts';
+import type { Deformation, Finding, IceCategory, Observation, SnowCover } from '../../src/domain/model.ts';
 import { FINDING_CODES, blocksSaving, checkSequence, sortCategoriesThickestFirst, validateObservation } from '../../src/domain/rules.ts';
 import { cruise, observation } from './fixtures.ts';
 
@@ -7,6 +7,16 @@ const cats = (obs: Observation) => obs.categories;
 const withCat = (i: number, change: Partial<IceCategory>): Observation => {
   const o = observation();
   o.categories = cats(o).map((c, j) => (j === i ? { ...c, ...change } : c));
+  return o;
+};
+const withDeformation = (change: Deformation, over: Partial<Observation> = {}): Observation => {
+  const o = observation(over);
+  o.deformation = { ...o.deformation, a: { ...o.deformation?.a, ...change } };
+  return o;
+};
+const withSnow = (change: SnowCover): Observation => {
+  const o = observation();
+  o.snow = { ...o.snow, a: { ...o.snow?.a, ...change } };
   return o;
 };
 const find = (fs: Finding[], code: string): Finding | undefined => fs.find((f) => f.code === code);
@@ -66,12 +76,12 @@ describe('validateObservation', () => {
     });
     it('partial out of range and partial zero', () => {
       expectFinding(withCat(1, { partialConcentration: 2.5 }), 'partial-out-of-range', 'categories.1.partialConcentration', ['2.5']);
-      expectFinding(withCat(2, { partialConcentration: 0 }), 'partial-zero', 'categories.2.partialConcentration', ['Category 3']);
+      expectFinding(withCat(2, { partialConcentration: 0 }), 'partial-zero', 'categories.2.partialConcentration', ['Ice type c']);
     });
     it('more than three categories is an error', () => {
       const o = observation({ totalConcentration: 10 });
       o.categories = [...cats(o), { partialConcentration: 1, stage: 'new' }];
-      expectFinding(o, 'too-many-categories', 'categories', ['4 ice categories']);
+      expectFinding(o, 'too-many-categories', 'categories', ['4 ice types']);
     });
     it('ice without categories is doubtful', () => {
       expectFinding(observation({ categories: [] }), 'categories-missing', 'categories', ['9/10']);
@@ -135,21 +145,40 @@ describe('validateObservation', () => {
 
   describe('deformation and snow', () => {
     it('ridged and rafted shares', () => {
-      expectFinding(withCat(0, { ridgedTenths: 11 }), 'deformation-share-out-of-range', 'categories.0.ridgedTenths', ['11']);
-      expectFinding(withCat(0, { ridgedTenths: 7, raftedTenths: 4 }), 'deformed-share-exceeds-category', 'categories.0.ridgedTenths', ['7/10', '4/10']);
+      expectFinding(withDeformation({ ridgedTenths: 11 }), 'deformation-share-out-of-range', 'deformation.a.ridgedTenths', ['Ice type a', '11']);
+      expectFinding(withDeformation({ ridgedTenths: 7, raftedTenths: 4 }), 'deformed-share-exceeds-category', 'deformation.a.ridgedTenths', ['7/10', '4/10']);
     });
     it('sail height: negative, deeper than keels reach (Timco and Burden 1997 ratio 4.4), without ridges', () => {
-      expectFinding(withCat(0, { sailHeightM: -1 }), 'sail-height-out-of-range', 'categories.0.sailHeightM', ['-1 m']);
+      expectFinding(withDeformation({ sailHeightM: -1 }), 'sail-height-out-of-range', 'deformation.a.sailHeightM', ['-1 m']);
       // 12 m x 4.4 = 52.8 m keel, beyond about 50 m (common practice).
-      expectFinding(withCat(0, { sailHeightM: 12 }), 'sail-height-implausible', 'categories.0.sailHeightM', ['12 m', '52.8 m']);
-      // Multi-year ratio 3.3: 12 m x 3.3 = 39.6 m, plausible.
-      expect(find(validateObservation(withCat(0, { stage: 'multi-year', thicknessCm: 300, sailHeightM: 12 })), 'sail-height-implausible')).toBeUndefined();
-      expectFinding(withCat(0, { ridgedTenths: 0 }), 'sail-height-without-ridges', 'categories.0.sailHeightM', ['1.2 m']);
+      expectFinding(withDeformation({ sailHeightM: 12 }), 'sail-height-implausible', 'deformation.a.sailHeightM', ['12 m', '52.8 m']);
+      // Multi-year ratio 3.3: 12 m x 3.3 = 39.6 m, plausible. The ratio follows ice type a's stage.
+      const multiYear = withDeformation({ sailHeightM: 12 });
+      multiYear.categories[0] = { ...(multiYear.categories[0] as IceCategory), stage: 'multi-year', thicknessCm: 300 };
+      expect(find(validateObservation(multiYear), 'sail-height-implausible')).toBeUndefined();
+      expectFinding(withDeformation({ ridgedTenths: 0 }), 'sail-height-without-ridges', 'deformation.a.sailHeightM', ['1.2 m']);
     });
     it('snow depth: negative, implausible, with "no snow"', () => {
-      expectFinding(withCat(0, { snowDepthCm: -2 }), 'snow-depth-out-of-range', 'categories.0.snowDepthCm', ['-2 cm']);
-      expectFinding(withCat(0, { snowDepthCm: 200 }), 'snow-depth-implausible', 'categories.0.snowDepthCm', ['200 cm']);
-      expectFinding(withCat(0, { snowKind: 'none' }), 'snow-depth-without-snow', 'categories.0.snowDepthCm', ['15 cm']);
+      expectFinding(withSnow({ depthCm: -2 }), 'snow-depth-out-of-range', 'snow.a.depthCm', ['-2 cm']);
+      expectFinding(withSnow({ depthCm: 200 }), 'snow-depth-implausible', 'snow.a.depthCm', ['200 cm']);
+      expectFinding(withSnow({ cover: 'none', wetness: undefined, crust: undefined }), 'snow-depth-without-snow', 'snow.a.depthCm', ['15 cm']);
+    });
+    it('snow said to be absent but described (common practice: no wetness, crust or drifts without snow)', () => {
+      expectFinding(withSnow({ cover: 'none', depthCm: 0 }), 'snow-described-without-snow', 'snow.a.cover', ['wetness', 'a crust']);
+      const none = validateObservation(withSnow({ cover: 'none', wetness: undefined, crust: undefined, depthCm: 0 }), cruise);
+      expect(find(none, 'snow-described-without-snow')).toBeUndefined();
+    });
+    it('unknown snow terms from a file are errors naming the value', () => {
+      expectFinding(withSnow({ wetness: 'slushy' as SnowCover['wetness'] }), 'snow-term-unknown', 'snow.a.wetness', ['"slushy"']);
+      expectFinding(withSnow({ cover: 'most' as SnowCover['cover'] }), 'snow-term-unknown', 'snow.a.cover', ['"most"']);
+    });
+    it('a group entry for an ice type the observation does not have is an error', () => {
+      const o = observation();
+      o.categories = o.categories.slice(0, 1);
+      expectFinding(o, 'group-without-ice-type', 'snow.b', ['ice type b']);
+      const d = observation({ deformation: { c: { ridgedTenths: 1 } } });
+      d.categories = d.categories.slice(0, 2);
+      expectFinding(d, 'group-without-ice-type', 'deformation.c', ['ice type c']);
     });
   });
 

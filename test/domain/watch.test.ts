@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { formatCountdown, groupMissed, missedSlotsBetween, slotOf, watchStatus } from '../../src/domain/watch';
 
-// Hourly observations on the full hour from the bridge: common practice (e.g. the ASPeCt
-// protocol, Worby and Allison 1999, observes hourly). The due/overdue margins are our own.
+// Hourly observations on the full hour from the bridge: common practice, no source (WMO-No. 259
+// names what is observed, not how often). The due/overdue margins are our own.
 const t = (iso: string) => Date.parse(iso);
 
 describe('slotOf', () => {

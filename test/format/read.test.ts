@@ -60,7 +60,7 @@ describe('reading: problems name their place', () => {
   });
 
   it('refuses a newer format version with a clear message', () => {
-    const r = readLogText(validText().replace('"formatVersion": 1', '"formatVersion": 2'));
+    const r = readLogText(validText().replace('"formatVersion": 2', '"formatVersion": 3'));
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.problems.listed[0]?.message).toContain('newer Floe Ledger');
   });

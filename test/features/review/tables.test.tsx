@@ -19,17 +19,17 @@ const cruise: Cruise = {
   observers: [{ id: 'A', name: 'Observer A', initials: 'OA' }, { id: 'B', name: 'Observer B', initials: 'OB' }],
   displayTimeZone: 'UTC', maxSpeedKn: 16, createdAt: iso(0), updatedAt: iso(0),
 };
-const obs = (n: number, h: number, who: string, total: number, categories: IceCategory[], lat: number): Observation => ({
+const obs = (n: number, h: number, who: string, total: number, categories: IceCategory[], lat: number, extra: Partial<Observation> = {}): Observation => ({
   id: `o${n}`, cruiseId: 'c', time: iso(h), position: { lat, lon: 0, source: 'gps-serial' }, observerId: who,
-  totalConcentration: total, categories, notes: '', photoIds: [], revision: 1, savedAt: iso(h), savedBy: who, deviceId: 'd', deleted: false,
+  totalConcentration: total, categories, notes: '', photoIds: [], revision: 1, savedAt: iso(h), savedBy: who, deviceId: 'd', deleted: false, ...extra,
 });
 const log = [
   obs(1, 0, 'A', 0, [], 69.9),
   obs(2, 1, 'A', 3, [{ partialConcentration: 0, stage: 'grey', thicknessCm: 12 }], 70.0),
   obs(3, 2, 'B', 9, [
-    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150, ridgedTenths: 2 },
-    { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20, ridgedTenths: 0 },
-  ], 70.6),
+    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150 },
+    { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20 },
+  ], 70.6, { deformation: { a: { ridgedTenths: 2 }, b: { ridgedTenths: 0 } } }),
   obs(4, 5, 'B', 10, [{ partialConcentration: 10, stage: 'medium-first-year', thicknessCm: 110 }], 71.2),
 ];
 const review = reviewCruise({ cruise, observations: log });
