@@ -38,3 +38,10 @@ export const LIMITS = {
 
 /** How many problems a rejected file lists one by one; the rest are counted. */
 export const MAX_LISTED_PROBLEMS = 20;
+
+/**
+ * How many schema errors a validator keeps; the rest are only counted. Without a cap a file of
+ * a million bad track rows holds millions of error objects. Baked into the generated validators
+ * (scripts/build-validators.ts): regenerate them after changing it.
+ */
+export const MAX_SCHEMA_ERRORS = 100;

@@ -38,8 +38,10 @@ export type ReadResult =
   | { ok: true; bundle: LogBundle; fromVersion: number; warnings: ReadWarning[]; archivePaths: Map<string, string> }
   | { ok: false; problems: ProblemReport };
 
-function reject(problems: Problem[]): ReadResult {
-  return { ok: false, problems: report(problems) };
+/** `uncounted`: further problems found but not kept (the validators keep MAX_SCHEMA_ERRORS). */
+function reject(problems: Problem[], uncounted = 0): ReadResult {
+  const r = report(problems);
+  return { ok: false, problems: { ...r, more: r.more + uncounted } };
 }
 
 const hasOwn = (o: object, k: string) => Object.prototype.hasOwnProperty.call(o, k);
@@ -195,7 +197,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
     const errors = validate.errors ?? [];
     const problems = errors.map((e) => schemaProblem(e, data));
     locate(text, problems, problems.map((p) => pathToPointer(p.path)));
-    return reject(problems);
+    return reject(problems, validate.droppedErrors ?? 0);
   }
   opts.onProgress?.('schema', 1);
 
@@ -206,7 +208,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
     if (!again(current)) {
       // A migration that produces an invalid file is a bug in this program, not in the file.
       const problems = (again.errors ?? []).map((e) => schemaProblem(e, current));
-      return reject(problems.map((p) => ({ ...p, message: `after migrating from version ${version}: ${p.message}` })));
+      return reject(problems.map((p) => ({ ...p, message: `after migrating from version ${version}: ${p.message}` })), again.droppedErrors ?? 0);
     }
   }
 
