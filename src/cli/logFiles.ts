@@ -7,6 +7,7 @@ import { readArchive } from '../format/archiveRead.ts';
 import { LIMITS } from '../format/limits.ts';
 import { formatProblem, formatReport, type ProblemReport } from '../format/problems.ts';
 import { readLogText, type ReadWarning } from '../format/read.ts';
+import { decodeLogText } from '../format/text.ts';
 import type { LogBundle, PhotoBytes } from '../format/types.ts';
 import { writeFileAtomic } from './atomicWrite.ts';
 import type { CliIO } from './command.ts';
@@ -34,7 +35,9 @@ export function loadLog(file: string): LoadedLog {
     const r = readArchive(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
     return r.ok ? { ok: true, file, bundle: r.bundle, photos: r.photos, fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
   }
-  const r = readLogText(bytes.toString('utf8'), {}, size);
+  const decoded = decodeLogText(bytes);
+  if (!decoded.ok) return { ok: false, file, problems: { listed: [decoded.problem], more: 0 } };
+  const r = readLogText(decoded.text, {}, size);
   return r.ok ? { ok: true, file, bundle: r.bundle, photos: new Map(), fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
 }
 

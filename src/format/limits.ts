@@ -28,8 +28,13 @@ export const LIMITS = {
   maxObservers: 200,
   /** Reviewed findings kept on one observation. */
   maxReviews: 200,
+  /** Largest log entry inside an archive once unpacked, in bytes: as large as a JSON log may be. */
+  maxArchiveLogBytes: 512 * 1024 * 1024,
   /** Largest single photo inside an archive, in bytes. */
   maxPhotoBytes: 50 * 1024 * 1024,
+  /** Earliest and latest year of any time in a log: year 0000 or 9999 is a typing or clock error. */
+  earliestYear: 1900,
+  latestYear: 2199,
   /** Most entries in a zip archive. */
   maxArchiveEntries: 100_002,
   /** Total uncompressed size of a zip archive, in bytes (guards against zip bombs). */
