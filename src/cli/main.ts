@@ -14,9 +14,11 @@ export const PROGRAM = 'floe-ledger';
  * asynchronously, after the command has set its exit code. Nobody reads any more, so later
  * output is dropped quietly instead of ending in a stack trace.
  */
+let pipeGuarded = false;
 function quietOnClosedPipe() {
+  if (pipeGuarded) return;
+  pipeGuarded = true;
   for (const stream of [process.stdout, process.stderr]) {
-    if (stream.listenerCount('error') > 0) continue;
     stream.on('error', (e: NodeJS.ErrnoException) => {
       if (e.code === 'EPIPE') return;
       throw e;
