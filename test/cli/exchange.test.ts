@@ -6,8 +6,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { CliIO } from '../../src/cli/command.ts';
-import { runCli } from '../../src/cli/main.ts';
+import { run } from './runCollected.ts';
 import { makeDemoCruise } from '../../src/domain/demo.ts';
 import { alongTrackDistanceM } from '../../src/domain/geodesy.ts';
 import { reviewCruise } from '../../src/domain/stats.ts';
@@ -17,13 +16,6 @@ const ROOT = resolve(import.meta.dirname, '../..');
 const dir = mkdtempSync(join(tmpdir(), 'floe-cli-'));
 const demoFile = join(dir, 'demo.json');
 
-async function run(...argv: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const io: CliIO = { stdout: (l) => out.push(l), stderr: (l) => err.push(l) };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 beforeAll(async () => {
   expect((await run('demo', '-o', demoFile)).code).toBe(0);

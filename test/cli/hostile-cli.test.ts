@@ -8,8 +8,7 @@ import { mkdtempSync, readdirSync, readFileSync, writeFileSync, existsSync } fro
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { CliIO } from '../../src/cli/command.ts';
-import { runCli } from '../../src/cli/main.ts';
+import { run } from './runCollected.ts';
 import { visible } from '../../src/cli/terminalText.ts';
 import { encodeLog, writeLogJson } from '../../src/format/encode.ts';
 import { sampleBundle } from '../format/arbitraries.ts';
@@ -19,13 +18,6 @@ const BIN = resolve(ROOT, 'bin/floe-ledger.mjs');
 const dir = mkdtempSync(join(tmpdir(), 'floe-cli-hostile-'));
 const demo = join(dir, 'demo.json');
 
-async function run(...argv: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const io: CliIO = { stdout: (l) => out.push(l), stderr: (l) => err.push(l) };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 /** bash -c with the command line; the bin shim is `floe`. */
 function sh(script: string) {
@@ -119,6 +111,7 @@ describe('bytes and terminal text (issue 16)', { timeout: 120_000 }, () => {
     const r = await run('summary', file);
     expect(r.code).toBe(0);
     const text = r.out.join('\n');
+    // eslint-disable-next-line no-control-regex -- looking for raw control characters is the point
     expect(text).not.toMatch(/[\u0000-\u0008\u000b-\u001f\u007f\u202a-\u202e]/);
     expect(r.out[0]).toBe('Cruise      Leg \\u001b[2J\\u001b[31mred\\u0000 \\u202eevil\\u202c (cruise-test-1)');
     expect(r.out[1]).toBe('Vessel      RV \\u0007Bell, ice class PC5');
