@@ -17,6 +17,17 @@ function validFile(): LogFileV2 {
   return encodeLog(sampleBundle(), { exportedAt: '2026-04-01T00:00:00Z' });
 }
 
+/**
+ * A version-1 log whose track holds `rows` rows, each with exactly one schema error (latitude
+ * 95), or all valid (latitude 75) when `valid` is set: the error-dense file of issue 16.
+ */
+export function errorDenseLog(rows: number, valid = false): Record<string, unknown> {
+  const file = validFile() as unknown as Record<string, unknown>;
+  const t0 = Date.UTC(2026, 2, 1);
+  const points = Array.from({ length: rows }, (_, i) => [new Date(t0 + i * 1000).toISOString().replace('.000', ''), valid ? 75 : 95, 10, 'gps-serial', null, null, null]);
+  return { ...file, track: { ...(file.track as object), points } };
+}
+
 export function validText(): string {
   return writeLogJson(validFile()).join('');
 }

@@ -84,9 +84,10 @@ export interface AppSession {
 export const DIST_DIR = resolve(import.meta.dirname, '../../../dist');
 
 /** Serve the built app, start a fresh Chromium, and open the app in one page. */
-export async function openApp(opts: LaunchOptions & { path?: string } = {}): Promise<AppSession> {
+export async function openApp(opts: LaunchOptions & { path?: string; initScript?: string } = {}): Promise<AppSession> {
   const server = await serveDirectory(DIST_DIR);
   const browser = await launchChromium(opts);
+  if (opts.initScript) await browser.context.addInitScript(opts.initScript);
   const page = browser.context.pages()[0] ?? (await browser.context.newPage());
   const consoleErrors = collectConsoleErrors(page);
   await page.goto(server.url + (opts.path ?? ''));
