@@ -268,7 +268,8 @@ describe('deformation and snow, groups of their own', () => {
     ]);
     expect(o?.deformation).toEqual({ a: { ridgedTenths: 2, raftedTenths: 0, sailHeightM: 1.5 } });
     expect(o?.snow).toEqual({ a: { cover: 'complete', wetness: 'very-wet', crust: true, depthCm: 25 }, b: { cover: 'partial', wetness: 'dry' } });
-  });
+    // Two ice types and both groups typed key by key: longer than the file's 30 s on a loaded machine.
+  }, 90_000);
 
   it('names a bad snow depth beside its field and puts the cursor there on save', async () => {
     const cruise = await freshCruise();
