@@ -66,7 +66,7 @@ export function checkObservation(o: ObservationInput): void {
     if (o.position.fixTime !== undefined) c.time('position.fixTime', o.position.fixTime);
   }
   if (!Array.isArray(o.categories)) c.fail('categories', 'must be a list');
-  if (o.categories.length > 3) c.fail('categories', `holds at most 3 ice categories, got ${o.categories.length}`);
+  if (o.categories.length > 3) c.fail('categories', `holds at most 3 ice types, got ${o.categories.length}`);
   o.categories.forEach((cat, i) => {
     c.number(`categories.${i}.partialConcentration`, cat.partialConcentration, 0, 10, { integer: true });
     c.oneOf(`categories.${i}.stage`, cat.stage, STAGE_KEYS);

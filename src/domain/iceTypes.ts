@@ -1,11 +1,10 @@
 // The ice types of an observation and the groups that describe them (deformation, snow). The
 // groups are keyed by the ice type's letter (a, b, c: thickest first, as the egg code names its
-// columns), so whatever reorders or removes ice types must carry the groups along: these helpers
-// do it in one place.
+// columns), so whatever reorders or removes ice types must carry the groups along (the form
+// keeps each ice type's rows in its draft row for that reason).
 import {
   ICE_TYPE_LETTERS,
   type Deformation,
-  type IceCategory,
   type IceTypeLetter,
   type Observation,
   type PerIceType,
@@ -60,24 +59,6 @@ export function groupToList<T>(group: PerIceType<T> | undefined, count: number):
     const l = ICE_TYPE_LETTERS[i];
     return l === undefined ? undefined : group?.[l];
   });
-}
-
-/**
- * The observation with its ice types in a new order: `order[i]` is the old index of the ice
- * type that becomes number i. Deformation and snow move with their ice types.
- */
-export function withIceTypeOrder<O extends Pick<Observation, 'categories' | 'deformation' | 'snow'>>(o: O, order: readonly number[]): O {
-  const n = o.categories.length;
-  const def = groupToList(o.deformation, n);
-  const snow = groupToList(o.snow, n);
-  const out: O = { ...o, categories: order.map((k) => o.categories[k] as IceCategory) };
-  const d = groupFromList(order.map((k) => def[k]));
-  const s = groupFromList(order.map((k) => snow[k]));
-  if (d) out.deformation = d;
-  else delete out.deformation;
-  if (s) out.snow = s;
-  else delete out.snow;
-  return out;
 }
 
 /** Letters of a group that name no ice type of the observation (a rule reports them). */

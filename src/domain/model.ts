@@ -193,7 +193,7 @@ export interface Observation {
   observerId: string;
   /** Total concentration in tenths; null only while not yet judged (e.g. in darkness). */
   totalConcentration: Tenths | null;
-  /** Up to three ice categories, thickest first (index 0 is the egg code's "a"). */
+  /** Up to three ice types, thickest first (index 0 is the egg code's "a"). */
   categories: IceCategory[];
   /** Stage of a trace (< 1/10) of ice thicker than the first category: the egg code's So. */
   traceStage?: StageKey;

@@ -95,6 +95,14 @@ export function emptyCategory(): CategoryDraft {
   };
 }
 
+/**
+ * A stored draft with every field of today's ice-type rows: a draft kept by an older version
+ * (or by another tab still running one) may lack a field added since, and the form reads them all.
+ */
+export function withCategoryDefaults(draft: ObservationDraft): ObservationDraft {
+  return { ...draft, categories: draft.categories.map((c) => ({ ...emptyCategory(), ...c })) };
+}
+
 export function emptyDraft(observerId = '', positionSource: PositionSource = 'manual'): ObservationDraft {
   return {
     id: crypto.randomUUID(),

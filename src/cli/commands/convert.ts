@@ -12,7 +12,7 @@ const TARGETS = ['geojson', 'csv', 'ndjson', 'log', 'zip'] as const;
 const usage = `Usage: npm run cli -- convert FILE --to ${TARGETS.join('|')} -o OUT [--include-deleted]
 
   geojson   observations as points with flat properties, the track as a line (RFC 7946)
-  csv       one row per observation, a column group per ice category (RFC 4180)
+  csv       one row per observation, a column group per ice type, then deformation and snow blocks (RFC 4180)
   ndjson    one flat observation record per line
   log       the log in the current format version (reads older versions by migration)
   zip       the log and its photos as an archive (OUT must end in .zip; refused when FILE is a
