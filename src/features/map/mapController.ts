@@ -10,11 +10,13 @@ import { deriveEggCode, eggCodeDrawing } from '../../domain/eggCode';
 import { coarseLand, fineLandUrl, graticuleData } from './basemap';
 import { observationFeatures, observationZones, shipFeature, featureCollection } from './geojson';
 import { graticuleFilter, graticuleLabels, graticuleSteps } from './graticule';
-import { eggImage, IMAGE_PIXEL_RATIO, shipImage, textImage, type RasterImage } from './mapImages';
+import { eggImage, IMAGE_PIXEL_RATIO, markImage, shipImage, textImage, type RasterImage } from './mapImages';
+import { bandSymbol, hasMarks } from './bandSymbols';
+import type { BandKey } from './concentrationBands';
 import { MapWorker, packTrack, type PreparedPair } from './mapWorkerClient';
 import { beyondMercator, MERCATOR_LIMIT_LAT, type TrackArrays } from './trackLevels';
 import { PolarOverlay } from './polarOverlay';
-import { buildStyle, eggFilter, LAYER, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
+import { buildStyle, eggFilter, LAYER, MARK_PREFIX, markImageRadius, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
 import { globeCamera, lonLatBounds, sample, type LonLat } from './view';
 
 export interface MapControllerOptions {
@@ -79,7 +81,7 @@ export class MapController {
       fadeDuration: 0,
     });
     this.map.touchZoomRotate.disableRotation();
-    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme]);
+    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme], this.theme);
     this.overlay.setEnabled(this.projection === 'globe');
     this.map.addControl(new NavigationControl({ showCompass: false }), 'top-right');
     this.map.addControl(new ScaleControl({ unit: 'nautical', maxWidth: 140 }), 'bottom-left');
@@ -181,6 +183,8 @@ export class MapController {
     if (id.startsWith(EGG_PREFIX)) {
       const o = this.observations.get(id.slice(EGG_PREFIX.length));
       if (o) this.put(id, eggImage(eggCodeDrawing(deriveEggCode(o)), c.ink, c.paper));
+    } else if (id.startsWith(MARK_PREFIX)) {
+      this.put(id, markImage(bandSymbol(this.theme, id.slice(MARK_PREFIX.length) as BandKey), markImageRadius(this.theme)));
     } else if (id.startsWith(LABEL_PREFIX)) {
       this.put(id, textImage(id.slice(LABEL_PREFIX.length), PALETTES[this.theme].label, c.halo));
     }
@@ -234,7 +238,7 @@ export class MapController {
     this.overlay.setPoints(
       fc.features
         .filter((f) => Math.abs(f.geometry.coordinates[1] as number) > MERCATOR_LIMIT_LAT - 0.5)
-        .map((f) => ({ id: f.properties.id, lon: f.geometry.coordinates[0] as number, lat: f.geometry.coordinates[1] as number, colour: f.properties.colour, t: f.properties.t, observerId: f.properties.observerId })),
+        .map((f) => ({ id: f.properties.id, lon: f.geometry.coordinates[0] as number, lat: f.geometry.coordinates[1] as number, band: f.properties.band, t: f.properties.t, observerId: f.properties.observerId })),
     );
     this.whenLoaded(() => {
       for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX)) this.map.removeImage(id);
@@ -285,6 +289,7 @@ export class MapController {
     this.overlay.setFilter((p) => (filter.fromMs === null || p.t >= filter.fromMs) && (filter.toMs === null || p.t <= filter.toMs) && (filter.observerIds.length === 0 || filter.observerIds.includes(p.observerId)));
     this.whenLoaded(() => {
       this.map.setFilter(LAYER.observations, observationLayerFilter(this.filter));
+      this.map.setFilter(LAYER.marks, observationLayerFilter(this.filter));
       this.map.setFilter(LAYER.egg, eggFilter(this.filter));
     });
   }
@@ -303,13 +308,15 @@ export class MapController {
   setTheme(theme: MapTheme): void {
     if (theme === this.theme) return;
     this.theme = theme;
-    this.overlay.setPalette(PALETTES[theme]);
+    this.overlay.setPalette(PALETTES[theme], theme);
     this.whenLoaded(() => {
       const style = buildStyle({ theme, projection: this.projection, land110: coarseLand().land, coast110: coarseLand().coast, graticule: graticuleData() });
       for (const layer of style.layers) {
         for (const [prop, value] of Object.entries(layer.paint ?? {})) this.map.setPaintProperty(layer.id, prop, value);
       }
-      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX)) this.map.removeImage(id);
+      // The marks layer is the one whose layout differs between displays.
+      this.map.setLayoutProperty(LAYER.marks, 'visibility', hasMarks(theme) ? 'visible' : 'none');
+      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX) || id.startsWith(MARK_PREFIX)) this.map.removeImage(id);
       this.addShipImage();
       this.updateLabels();
     });

@@ -3,6 +3,7 @@
 // needs no glyph PBFs (MapLibre's text layers need them, and we ship no font files); the text
 // is a code or a number we made, never user input, and it never passes through HTML.
 import type { EggCodeDrawing } from '../../domain/eggCode';
+import { markRects, type BandSymbol } from './bandSymbols';
 
 export interface RasterImage {
   width: number;
@@ -101,4 +102,22 @@ export function shipImage(fill: string, halo: string, sizePx = 26): RasterImage 
   ctx.fillStyle = fill;
   ctx.fill();
   return raster(ctx, s, s);
+}
+
+/** A band's mark alone (no disc: the circle layer draws that), for a disc of `radiusPx`. */
+export function markImage(symbol: BandSymbol, radiusPx: number): RasterImage | null {
+  const r = IMAGE_PIXEL_RATIO;
+  const size = Math.ceil(2 * radiusPx * r);
+  const ctx = context(size, size);
+  if (!ctx) return null;
+  ctx.fillStyle = symbol.ink;
+  const c = size / 2;
+  const rad = radiusPx * r;
+  for (const q of markRects(symbol.mark)) {
+    ctx.beginPath();
+    if (q.round) ctx.arc(c, c, (q.w / 2) * rad, 0, Math.PI * 2);
+    else ctx.rect(c + q.x * rad, c + q.y * rad, q.w * rad, q.h * rad);
+    ctx.fill();
+  }
+  return raster(ctx, size, size);
 }
