@@ -65,6 +65,7 @@ export function eggImage(drawing: EggCodeDrawing, ink: string, paper: string, he
   ctx.strokeStyle = ink;
   ctx.fillStyle = paper;
   for (const s of drawing.shapes) {
+    if (s.kind === 'dot') continue;
     ctx.beginPath();
     if (s.kind === 'ellipse') {
       ctx.ellipse(s.cx, s.cy, s.rx, s.ry, 0, 0, Math.PI * 2);
@@ -76,10 +77,19 @@ export function eggImage(drawing: EggCodeDrawing, ink: string, paper: string, he
     ctx.stroke();
   }
   ctx.fillStyle = ink;
-  ctx.font = `bold 26px ${FONT}`;
+  // Stage dots are shapes placed by the drawing (see eggCodeDrawing): never a "." glyph.
+  for (const s of drawing.shapes) {
+    if (s.kind !== 'dot') continue;
+    ctx.beginPath();
+    ctx.arc(s.cx, s.cy, s.r * 1.15, 0, Math.PI * 2);
+    ctx.fill();
+  }
   ctx.textAlign = 'center';
   ctx.textBaseline = 'middle';
-  for (const t of drawing.texts) ctx.fillText(t.text, t.x, t.y);
+  for (const t of drawing.texts) {
+    ctx.font = `bold ${t.size}px ${FONT}`;
+    ctx.fillText(t.text, t.x, t.y);
+  }
   return raster(ctx, width, height);
 }
 

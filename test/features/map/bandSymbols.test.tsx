@@ -2,6 +2,7 @@
 // the red display has no colour to work with and uses a brightness ramp plus a mark per band
 // (our own design). The legend draws from the same description.
 import { describe, expect, it } from 'vitest';
+import type { FeatureCollection } from 'geojson';
 import { render } from '@testing-library/react';
 import { bandSymbol, hasMarks, markRects, NIGHT_DIMMING } from '../../../src/features/map/bandSymbols';
 import { BANDS, hexColour } from '../../../src/features/map/concentrationBands';
@@ -19,7 +20,7 @@ const luminance = (hex: string): number => {
   return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);
 };
 const ORDER = ['ice-free', 'open-water', 'c1-3', 'c4-6', 'c7-8', 'c9-10'] as const;
-const empty = { type: 'FeatureCollection', features: [] } as const;
+const empty: FeatureCollection = { type: 'FeatureCollection', features: [] };
 
 describe('band symbols per display', () => {
   it('day: the WMO/TD-No. 1215 colours themselves, no marks', () => {
