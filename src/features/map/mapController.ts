@@ -38,6 +38,8 @@ export interface MapData {
 }
 
 const EGG_PREFIX = 'egg:';
+/** How far from a symbol a tap still selects it, in CSS pixels (a fingertip is about 10 mm). */
+const TOUCH_SLOP_PX = 22;
 const LABEL_PREFIX = 'lbl:';
 /** How long blob: URLs of a removed map are kept, for a read MapLibre's worker had already begun. */
 const RELEASE_GRACE_MS = 10_000;
@@ -99,15 +101,36 @@ export class MapController {
       opts.onState?.('busy');
     });
     this.map.on('moveend', () => this.updateLabels());
-    this.map.on('click', (e) => {
-      const polar = this.overlay.hit(e.point.x, e.point.y);
-      if (polar) return opts.onSelect(polar);
-      const hit = this.map.queryRenderedFeatures(e.point, { layers: [LAYER.observations] })[0] as MapGeoJSONFeature | undefined;
-      const id = hit?.properties?.id;
-      opts.onSelect(typeof id === 'string' ? id : null);
+    this.map.on('click', (e) => this.selectAt(e.point.x, e.point.y, 2));
+    // A finger (or a gloved one) covers far more than a symbol: a short tap that did not move
+    // selects the nearest observation within a thumb's reach. MapLibre keeps touches for its
+    // gestures, so a tap does not always arrive as a click.
+    let touch: { x: number; y: number; t: number } | null = null;
+    this.map.on('touchstart', (e) => {
+      touch = e.points.length === 1 ? { x: e.point.x, y: e.point.y, t: performance.now() } : null;
+    });
+    this.map.on('touchend', (e) => {
+      if (touch && Math.hypot(e.point.x - touch.x, e.point.y - touch.y) < 10 && performance.now() - touch.t < 600) this.selectAt(e.point.x, e.point.y, TOUCH_SLOP_PX);
+      touch = null;
     });
     this.map.on('mouseenter', LAYER.observations, () => (this.map.getCanvas().style.cursor = 'pointer'));
     this.map.on('mouseleave', LAYER.observations, () => (this.map.getCanvas().style.cursor = ''));
+  }
+
+  /** Selects the observation drawn nearest to a point, within `slop` CSS pixels of its symbol. */
+  private selectAt(x: number, y: number, slop: number): void {
+    const polar = this.overlay.hit(x, y);
+    if (polar) return this.opts.onSelect(polar);
+    const hits = this.map.queryRenderedFeatures([[x - slop, y - slop], [x + slop, y + slop]], { layers: [LAYER.observations] }) as MapGeoJSONFeature[];
+    let best: { id: string; d: number } | null = null;
+    for (const h of hits) {
+      const id = h.properties?.id;
+      if (typeof id !== 'string' || h.geometry.type !== 'Point') continue;
+      const p = this.map.project(h.geometry.coordinates as [number, number]);
+      const d = Math.hypot(p.x - x, p.y - y);
+      if (!best || d < best.d) best = { id, d };
+    }
+    this.opts.onSelect(best?.id ?? null);
   }
 
   private onLoad(): void {
