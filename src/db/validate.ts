@@ -113,6 +113,7 @@ export function checkCruise(x: Cruise): void {
   });
   c.time('createdAt', x.createdAt);
   c.time('updatedAt', x.updatedAt);
+  if (x.endTime !== undefined) c.time('endTime', x.endTime);
 }
 
 /** Throws for the first bad point, naming its index in the list handed in. */

@@ -102,9 +102,13 @@ function stageSymbol(stage: StageKey): string {
   return (STAGES[stage] as (typeof STAGES)[StageKey] | undefined)?.eggCode ?? EGG_UNKNOWN;
 }
 
-/** One-line form for lists and CSV: `Ct Ca Cb Cc / So Sa Sb Sc Sd / Fa Fb Fc`, `-` for blank. */
+/**
+ * One-line form for lists and files: `Ct Ca Cb Cc / So Sa Sb Sc Sd / Fa Fb Fc`, `-` for blank.
+ * A dotted stage symbol is followed by two spaces instead of one, so that "1.  7 5" cannot be
+ * read as the number 1.75 (show it with white space kept, e.g. CSS `white-space: pre`).
+ */
 export function eggCodeText(code: EggCode): string {
-  return TEXT_GROUPS.map((g) => g.map((f) => code[f] || '-').join(' ')).join(' / ');
+  return TEXT_GROUPS.map((g) => g.map((f) => code[f] || '-').reduce((line, sym, i) => (i === 0 ? sym : line + (line.endsWith('.') ? '  ' : ' ') + sym), '')).join(' / ');
 }
 
 /** The first stage of our table that carries each egg code symbol: the key a code reads back as. */
@@ -274,13 +278,17 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
 
 export type EggShape =
   | { kind: 'ellipse'; cx: number; cy: number; rx: number; ry: number }
-  | { kind: 'line'; x1: number; y1: number; x2: number; y2: number };
+  | { kind: 'line'; x1: number; y1: number; x2: number; y2: number }
+  /** The dot of a dotted stage symbol ("1." medium first-year ...): a filled disc. */
+  | { kind: 'dot'; cx: number; cy: number; r: number; field: EggCodeField };
 
 export interface EggText {
   x: number;
   y: number;
   text: string;
   field: EggCodeField;
+  /** Font size in drawing units. */
+  size: number;
 }
 
 export interface EggCodeDrawing {
@@ -311,7 +319,26 @@ function halfWidthAt(y: number): number {
 
 const round1 = (v: number): number => Math.round(v * 10) / 10;
 
-/** The egg symbol as shapes and texts in a 120 x 160 box. Blank fields draw no text. */
+/** Font size of the egg's symbols, in drawing units (the box is 120 wide). */
+export const EGG_FONT = 20;
+/** The stage row's font when So or Sd is present and the row holds five columns. */
+export const EGG_FONT_CROWDED = 18;
+/**
+ * Where a stage symbol's dot sits, relative to the digit's centre, in ems: just right of the
+ * digit at its foot. The dot is drawn as a shape, not as a "." glyph, so its place does not
+ * depend on the font, and the gap to the next symbol is fixed by the layout: at least
+ * 0.4 em with five stage columns and 0.6 em with three, against a few hundredths of an em
+ * between a digit and a full stop in running text, so "1. 7 5" never reads as "1.75".
+ */
+export const DOT_DX_EM = 0.42;
+export const DOT_DY_EM = 0.27;
+export const DOT_R_EM = 0.09;
+
+/**
+ * The egg symbol as shapes and texts in a 120 x 160 box. Blank fields draw no text. Stage
+ * symbols share the C row's three columns (Sa under Ca ...), unless So or Sd is present: then
+ * the stage row has five columns, 24 apart, in a slightly smaller font.
+ */
 export function eggCodeDrawing(code: EggCode): EggCodeDrawing {
   const shapes: EggShape[] = [{ kind: 'ellipse', cx: CX, cy: CY, rx: RX, ry: RY }];
   for (const y of DIVIDERS) {
@@ -319,15 +346,22 @@ export function eggCodeDrawing(code: EggCode): EggCodeDrawing {
     shapes.push({ kind: 'line', x1: round1(CX - hw), y1: y, x2: round1(CX + hw), y2: y });
   }
   const texts: EggText[] = [];
-  const put = (field: EggCodeField, x: number, y: number): void => {
-    if (code[field] !== '') texts.push({ x, y, text: code[field], field });
+  const put = (field: EggCodeField, x: number, y: number, size = EGG_FONT): void => {
+    const value = code[field];
+    if (value === '') return;
+    const dotted = value.length > 1 && value.endsWith('.');
+    texts.push({ x, y, text: dotted ? value.slice(0, -1) : value, field, size });
+    if (dotted) shapes.push({ kind: 'dot', cx: round1(x + DOT_DX_EM * size), cy: round1(y + DOT_DY_EM * size), r: round1(DOT_R_EM * size), field });
   };
   put('ct', CX, ROWS[0]);
   const cols = [CX - 30, CX, CX + 30];
   C_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[1]));
-  // So and Sd sit either side of Sa..Sc, so the stage row is five columns, 24 apart.
-  const sCols = [CX - 48, CX - 24, CX, CX + 24, CX + 48];
-  (['so', 'sa', 'sb', 'sc', 'sd'] as const).forEach((f, i) => put(f, sCols[i] ?? CX, ROWS[2]));
+  if (code.so === '' && code.sd === '') {
+    S_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[2]));
+  } else {
+    const sCols = [CX - 48, CX - 24, CX, CX + 24, CX + 48];
+    (['so', 'sa', 'sb', 'sc', 'sd'] as const).forEach((f, i) => put(f, sCols[i] ?? CX, ROWS[2], EGG_FONT_CROWDED));
+  }
   F_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[3]));
   return { width: W, height: H, shapes, texts, title: `Egg code ${eggCodeText(code)}` };
 }

@@ -102,6 +102,12 @@ export interface Cruise {
   displayTimeZone: string;
   /** Implied-speed limit for the sequence check, in knots. */
   maxSpeedKn: number;
+  /**
+   * When the cruise ends (or ended), UTC. From then on the watch calls for no observation and
+   * counts no missed hour. Optional: an open cruise has none. A local setting of the watch: it
+   * is not part of the exchange format.
+   */
+  endTime?: IsoUtc;
   createdAt: IsoUtc;
   updatedAt: IsoUtc;
 }

@@ -103,6 +103,8 @@ function planCruise(stored: Cruise | null, incoming: Cruise): MergePlan['cruise'
   // The settings saved last win; observers are never dropped.
   const base = incoming.updatedAt > stored.updatedAt ? incoming : stored;
   const value: Cruise = { ...base, observers: mergeObservers(stored.observers, incoming.observers) };
+  // The end time is a local watch setting the log format does not carry: a file never clears it.
+  if (value.endTime === undefined && stored.endTime !== undefined) value.endTime = stored.endTime;
   return { action: canonicalJson(value) === canonicalJson(stored) ? 'unchanged' : 'update', value };
 }
 

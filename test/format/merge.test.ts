@@ -21,6 +21,15 @@ describe('merge planning', { timeout: 120_000 }, () => {
     expect(plan.addHistory).toHaveLength(1);
   });
 
+  it("keeps the stored cruise's end time, a local setting the file does not carry", () => {
+    const local = stored();
+    local.cruise = { ...local.cruise, endTime: '2026-03-05T12:00:00Z' };
+    const incoming = sampleBundle();
+    incoming.cruise = { ...incoming.cruise, name: 'Renamed later', updatedAt: '2099-01-01T00:00:00Z' };
+    const plan = planMerge(bundleTarget(local), incoming);
+    expect(plan.cruise.value).toMatchObject({ name: 'Renamed later', endTime: '2026-03-05T12:00:00Z' });
+  });
+
   it('the same file again: everything identical, nothing to write', () => {
     const plan = planMerge(bundleTarget(stored()), sampleBundle());
     expect(plan.counts).toMatchObject({ new: 0, identical: 2, newer: 0, older: 0, conflict: 0, trackNew: 0, trackDuplicate: 3, photosNew: 0, photosDuplicate: 1 });

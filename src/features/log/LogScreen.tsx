@@ -13,6 +13,7 @@ import { observationToDraft, readTime } from './formModel';
 import { GpsPanel, fixAgeS } from './GpsPanel';
 import { HistoryPanel } from './HistoryPanel';
 import { useActiveCruise, useObservations } from './logData';
+import { NumberKeypad } from './NumberKeypad';
 import { ObservationForm } from './ObservationForm';
 import { ObservationList } from './ObservationList';
 import { StartScreen } from './StartScreen';
@@ -78,6 +79,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
         </p>
       )}
       <ObservationForm cruise={cruise} observations={observations} livePosition={livePosition} positionNote={trackReason} defaultSource={defaultSource} />
+      <NumberKeypad />
       <p className="muted small autosave-line" aria-live="polite">
         {autosave.kind === 'saved' && `Draft kept ${autosave.at.slice(11, 19)} UTC.`}
         {autosave.kind === 'failed' && <span className="finding finding-error">The draft could not be kept: {autosave.message}</span>}

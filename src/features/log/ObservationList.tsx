@@ -7,7 +7,7 @@ import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { deriveEggCode, eggCodeText } from '../../domain/eggCode';
 import type { Cruise, Finding, Observation } from '../../domain/model';
 import { polarisForObservation } from '../../domain/polaris';
-import { groupMissed, missedSlotsBetween, type MissedRun } from '../../domain/watch';
+import { groupMissed, missedRunText, missedSlotsBetween, type MissedRun } from '../../domain/watch';
 import { useSelection } from '../../state/selection';
 import { cruiseFindings } from './findings';
 import { showPosition } from './positionText';
@@ -168,8 +168,7 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
               return (
                 <div key={`m-${r.run.from}`} className="list-row missed" style={style} role="option" aria-selected={false} data-testid="missed-row">
                   <span className="finding finding-warning">
-                    Missed: {r.run.from.replace('T', ' ').slice(0, 16)}
-                    {r.run.count > 1 ? ` to ${r.run.to.slice(11, 16)} (${r.run.count} observations)` : ''}
+                    Missed: {missedRunText(r.run)}
                   </span>
                 </div>
               );

@@ -27,7 +27,7 @@ export function ObservationDetails({ observation, observers, onClose }: { observ
           {observation.totalConcentration === null ? 'not judged' : `${observation.totalConcentration}/10`} ({b.label})
         </dd>
         <dt>Egg code</dt>
-        <dd className="mono">{eggCodeText(deriveEggCode(observation))}</dd>
+        <dd className="egg-line">{eggCodeText(deriveEggCode(observation))}</dd>
         {observation.categories.map((c, i) => (
           <div key={i} className="details-row">
             <dt>{iceTypeName(i)}</dt>

@@ -10,11 +10,13 @@ import { deriveEggCode, eggCodeDrawing } from '../../domain/eggCode';
 import { coarseLand, fineLandUrl, graticuleData } from './basemap';
 import { observationFeatures, observationZones, shipFeature, featureCollection } from './geojson';
 import { graticuleFilter, graticuleLabels, graticuleSteps } from './graticule';
-import { eggImage, IMAGE_PIXEL_RATIO, shipImage, textImage, type RasterImage } from './mapImages';
+import { eggImage, IMAGE_PIXEL_RATIO, markImage, shipImage, textImage, type RasterImage } from './mapImages';
+import { bandSymbol, hasMarks } from './bandSymbols';
+import type { BandKey } from './concentrationBands';
 import { MapWorker, packTrack, type PreparedPair } from './mapWorkerClient';
 import { beyondMercator, MERCATOR_LIMIT_LAT, type TrackArrays } from './trackLevels';
 import { PolarOverlay } from './polarOverlay';
-import { buildStyle, eggFilter, LAYER, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
+import { buildStyle, eggFilter, LAYER, MARK_PREFIX, markImageRadius, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
 import { globeCamera, lonLatBounds, sample, type LonLat } from './view';
 
 export interface MapControllerOptions {
@@ -36,6 +38,8 @@ export interface MapData {
 }
 
 const EGG_PREFIX = 'egg:';
+/** How far from a symbol a tap still selects it, in CSS pixels (a fingertip is about 10 mm). */
+const TOUCH_SLOP_PX = 22;
 const LABEL_PREFIX = 'lbl:';
 /** How long blob: URLs of a removed map are kept, for a read MapLibre's worker had already begun. */
 const RELEASE_GRACE_MS = 10_000;
@@ -79,7 +83,7 @@ export class MapController {
       fadeDuration: 0,
     });
     this.map.touchZoomRotate.disableRotation();
-    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme]);
+    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme], this.theme);
     this.overlay.setEnabled(this.projection === 'globe');
     this.map.addControl(new NavigationControl({ showCompass: false }), 'top-right');
     this.map.addControl(new ScaleControl({ unit: 'nautical', maxWidth: 140 }), 'bottom-left');
@@ -97,15 +101,36 @@ export class MapController {
       opts.onState?.('busy');
     });
     this.map.on('moveend', () => this.updateLabels());
-    this.map.on('click', (e) => {
-      const polar = this.overlay.hit(e.point.x, e.point.y);
-      if (polar) return opts.onSelect(polar);
-      const hit = this.map.queryRenderedFeatures(e.point, { layers: [LAYER.observations] })[0] as MapGeoJSONFeature | undefined;
-      const id = hit?.properties?.id;
-      opts.onSelect(typeof id === 'string' ? id : null);
+    this.map.on('click', (e) => this.selectAt(e.point.x, e.point.y, 2));
+    // A finger (or a gloved one) covers far more than a symbol: a short tap that did not move
+    // selects the nearest observation within a thumb's reach. MapLibre keeps touches for its
+    // gestures, so a tap does not always arrive as a click.
+    let touch: { x: number; y: number; t: number } | null = null;
+    this.map.on('touchstart', (e) => {
+      touch = e.points.length === 1 ? { x: e.point.x, y: e.point.y, t: performance.now() } : null;
+    });
+    this.map.on('touchend', (e) => {
+      if (touch && Math.hypot(e.point.x - touch.x, e.point.y - touch.y) < 10 && performance.now() - touch.t < 600) this.selectAt(e.point.x, e.point.y, TOUCH_SLOP_PX);
+      touch = null;
     });
     this.map.on('mouseenter', LAYER.observations, () => (this.map.getCanvas().style.cursor = 'pointer'));
     this.map.on('mouseleave', LAYER.observations, () => (this.map.getCanvas().style.cursor = ''));
+  }
+
+  /** Selects the observation drawn nearest to a point, within `slop` CSS pixels of its symbol. */
+  private selectAt(x: number, y: number, slop: number): void {
+    const polar = this.overlay.hit(x, y);
+    if (polar) return this.opts.onSelect(polar);
+    const hits = this.map.queryRenderedFeatures([[x - slop, y - slop], [x + slop, y + slop]], { layers: [LAYER.observations] }) as MapGeoJSONFeature[];
+    let best: { id: string; d: number } | null = null;
+    for (const h of hits) {
+      const id = h.properties?.id;
+      if (typeof id !== 'string' || h.geometry.type !== 'Point') continue;
+      const p = this.map.project(h.geometry.coordinates as [number, number]);
+      const d = Math.hypot(p.x - x, p.y - y);
+      if (!best || d < best.d) best = { id, d };
+    }
+    this.opts.onSelect(best?.id ?? null);
   }
 
   private onLoad(): void {
@@ -181,6 +206,8 @@ export class MapController {
     if (id.startsWith(EGG_PREFIX)) {
       const o = this.observations.get(id.slice(EGG_PREFIX.length));
       if (o) this.put(id, eggImage(eggCodeDrawing(deriveEggCode(o)), c.ink, c.paper));
+    } else if (id.startsWith(MARK_PREFIX)) {
+      this.put(id, markImage(bandSymbol(this.theme, id.slice(MARK_PREFIX.length) as BandKey), markImageRadius(this.theme)));
     } else if (id.startsWith(LABEL_PREFIX)) {
       this.put(id, textImage(id.slice(LABEL_PREFIX.length), PALETTES[this.theme].label, c.halo));
     }
@@ -234,7 +261,7 @@ export class MapController {
     this.overlay.setPoints(
       fc.features
         .filter((f) => Math.abs(f.geometry.coordinates[1] as number) > MERCATOR_LIMIT_LAT - 0.5)
-        .map((f) => ({ id: f.properties.id, lon: f.geometry.coordinates[0] as number, lat: f.geometry.coordinates[1] as number, colour: f.properties.colour, t: f.properties.t, observerId: f.properties.observerId })),
+        .map((f) => ({ id: f.properties.id, lon: f.geometry.coordinates[0] as number, lat: f.geometry.coordinates[1] as number, band: f.properties.band, t: f.properties.t, observerId: f.properties.observerId })),
     );
     this.whenLoaded(() => {
       for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX)) this.map.removeImage(id);
@@ -285,6 +312,7 @@ export class MapController {
     this.overlay.setFilter((p) => (filter.fromMs === null || p.t >= filter.fromMs) && (filter.toMs === null || p.t <= filter.toMs) && (filter.observerIds.length === 0 || filter.observerIds.includes(p.observerId)));
     this.whenLoaded(() => {
       this.map.setFilter(LAYER.observations, observationLayerFilter(this.filter));
+      this.map.setFilter(LAYER.marks, observationLayerFilter(this.filter));
       this.map.setFilter(LAYER.egg, eggFilter(this.filter));
     });
   }
@@ -303,13 +331,15 @@ export class MapController {
   setTheme(theme: MapTheme): void {
     if (theme === this.theme) return;
     this.theme = theme;
-    this.overlay.setPalette(PALETTES[theme]);
+    this.overlay.setPalette(PALETTES[theme], theme);
     this.whenLoaded(() => {
       const style = buildStyle({ theme, projection: this.projection, land110: coarseLand().land, coast110: coarseLand().coast, graticule: graticuleData() });
       for (const layer of style.layers) {
         for (const [prop, value] of Object.entries(layer.paint ?? {})) this.map.setPaintProperty(layer.id, prop, value);
       }
-      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX)) this.map.removeImage(id);
+      // The marks layer is the one whose layout differs between displays.
+      this.map.setLayoutProperty(LAYER.marks, 'visibility', hasMarks(theme) ? 'visible' : 'none');
+      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX) || id.startsWith(MARK_PREFIX)) this.map.removeImage(id);
       this.addShipImage();
       this.updateLabels();
     });

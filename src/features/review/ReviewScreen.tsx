@@ -5,6 +5,7 @@ import { useId, useMemo, useState } from 'react';
 import type { Cruise, Observation, TrackPoint } from '../../domain/model';
 import { VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
 import { REVIEW_CAUTIONS, collectFindings, reviewCruise } from '../../domain/stats';
+import { effectiveTheme, useThemeStore } from '../../state/theme';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
@@ -44,6 +45,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
   const findings = useMemo(() => collectFindings(observations, cruise), [observations, cruise]);
   const byId = useMemo(() => new Map(observations.map((o) => [o.id, o])), [observations]);
   const observerName = cruise.observers.find((o) => o.id === observerId)?.name;
+  const theme = effectiveTheme(useThemeStore());
   return (
     <div className="review-body">
       <div className="review-heading">
@@ -62,6 +64,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
           <button type="button" className="button primary" onClick={() => window.print()}>
             Print the report
           </button>
+          {theme !== 'day' && <span className="muted small">The preview and the print keep this dark display; choose Day for black on white paper.</span>}
         </div>
         {observerName && (
           <p className="review-filter-note" role="status">

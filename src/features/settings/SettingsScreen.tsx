@@ -1,3 +1,4 @@
+import { CruiseEnd } from './CruiseEnd';
 import { CruiseSetup } from './CruiseSetup';
 import { StoragePanel } from './StoragePanel';
 
@@ -7,6 +8,7 @@ export function SettingsScreen() {
       <h2 id="settings-title">Settings</h2>
       <p>Settings: cruise, vessel, observers, storage and display.</p>
       <CruiseSetup />
+      <CruiseEnd />
       <StoragePanel />
     </section>
   );

@@ -34,6 +34,8 @@ export interface LaunchOptions {
   offline?: boolean;
   /** Keep service workers out of this run (to load the app from the network as a baseline). */
   blockServiceWorkers?: boolean;
+  /** Emulate a touch screen (touch events, `page.touchscreen`). */
+  hasTouch?: boolean;
 }
 
 export interface Browser {
@@ -52,6 +54,7 @@ export async function launchChromium(opts: LaunchOptions = {}): Promise<Browser>
     acceptDownloads: true,
     offline: opts.offline ?? false,
     serviceWorkers: opts.blockServiceWorkers ? 'block' : 'allow',
+    hasTouch: opts.hasTouch ?? false,
   });
   return {
     context,

@@ -39,7 +39,14 @@ describe('offline style', () => {
   it('keys observations by id for feature state, colours them by band and draws egg codes from a zoom', () => {
     expect(style.sources[SRC.observations]).toMatchObject({ type: 'geojson', promoteId: 'id' });
     const obs = style.layers.find((l) => l.id === LAYER.observations);
-    expect(obs).toMatchObject({ type: 'circle', paint: { 'circle-color': ['get', 'colour'] } });
+    // By day the disc colours are the WMO/TD-No. 1215 total-concentration colours, by band.
+    const colour = (obs?.paint as Record<string, unknown>)['circle-color'] as unknown[];
+    expect(colour.slice(0, 2)).toEqual(['match', ['get', 'band']]);
+    const pairs = new Map<unknown, unknown>();
+    for (let i = 2; i + 1 < colour.length; i += 2) pairs.set(colour[i], colour[i + 1]);
+    expect(pairs.get('c4-6')).toBe('#ffff00'); // WMO/TD-No. 1215: 4-6/10 yellow 255,255,0
+    expect(pairs.get('c7-8')).toBe('#ff7d07'); // WMO/TD-No. 1215: 7-8/10 orange 255,125,7
+    expect(pairs.get('ice-free')).toBe('#0064ff'); // WMO/TD-No. 1215: ice free 0,100,255
     expect(JSON.stringify(obs)).toContain('feature-state');
     expect(style.layers.find((l) => l.id === LAYER.egg)).toMatchObject({ type: 'symbol', minzoom: EGG_MIN_ZOOM, layout: { 'icon-image': ['get', 'egg'] } });
     const order = style.layers.map((l) => l.id);
