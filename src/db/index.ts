@@ -30,7 +30,18 @@ export {
   type DeleteOptions,
   type ListObservationsQuery,
 } from './observations';
-export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore, DEFAULT_TRACK_CHUNK, type AddTrackPointsOptions, type AddTrackPointsResult } from './trackPoints';
+export {
+  addTrackPoints,
+  listTrackPoints,
+  listTrackChunks,
+  countTrackPoints,
+  trackPointAtOrBefore,
+  DEFAULT_TRACK_CHUNK,
+  type AddTrackPointsOptions,
+  type AddTrackPointsResult,
+  type TrackRange,
+} from './trackPoints';
+export { decodeChunk, pointAt, type TrackChunkRow } from './trackChunk';
 export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';

@@ -2,6 +2,7 @@
 // edited: a change is a new entry with a higher number, its full `stores` and, when existing
 // rows must change shape, an `upgrade` function. See docs/dev/db.md.
 import type { Transaction } from 'dexie';
+import { convertTrackPointsToChunks } from './trackUpgrade';
 
 export interface SchemaVersion {
   version: number;
@@ -47,6 +48,26 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       meta: 'key',
       conflicts: 'id, observationId, cruiseId',
     },
+  },
+  {
+    version: 4,
+    note: 'track stored in chunks: one trackChunks row per cruise and UTC hour with columnar typed arrays; trackPoints rows converted and the table removed',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: null,
+      // One row per cruise and UTC hour (also the unit of a sync document). The second index
+      // carries the point count, so counting a track reads index keys, not the arrays.
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+    },
+    rewrites: ['trackPoints'],
+    upgrade: (tx) => convertTrackPointsToChunks(tx),
   },
 ];
 

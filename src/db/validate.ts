@@ -113,4 +113,8 @@ export function checkTrackPoint(p: TrackPoint, index: number): void {
   if (!(p.lat >= -90 && p.lat <= 90)) c.number(`${at}.lat`, p.lat, -90, 90);
   if (!(p.lon >= -180 && p.lon <= 180)) c.number(`${at}.lon`, p.lon, -180, 180);
   if (!POSITION_SOURCES.includes(p.source)) c.oneOf(`${at}.source`, p.source, POSITION_SOURCES);
+  // The chunk columns keep "not known" as NaN, so a value that is present must be a number.
+  if (p.sogKn !== undefined && !Number.isFinite(p.sogKn)) c.number(`${at}.sogKn`, p.sogKn, -Infinity, Infinity);
+  if (p.cogDeg !== undefined && !Number.isFinite(p.cogDeg)) c.number(`${at}.cogDeg`, p.cogDeg, -Infinity, Infinity);
+  if (p.headingDeg !== undefined && !Number.isFinite(p.headingDeg)) c.number(`${at}.headingDeg`, p.headingDeg, -Infinity, Infinity);
 }
