@@ -9,6 +9,7 @@ import { getDb, writableDb } from './connection';
 import { FloeDbError, mapWriteError } from './errors';
 import type { ConflictRecord, ObservationRevision, PhotoRecord } from './rows';
 import { allTrackChunksIn, mergeTrackPointsInTransaction, storedTrackTimes } from './trackPoints';
+import { toTimed } from './trackChunk';
 import { nowIso } from './validate';
 
 /** The store changed between the preview and the apply; nothing was written. */
@@ -133,7 +134,7 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
       // bulkAdd: an existing history row is never replaced; a clash aborts the whole import.
       if (revisionRows.length > 0) await db.revisions.bulkAdd(revisionRows);
       if (conflictRows.length > 0) await db.conflicts.bulkPut(conflictRows);
-      if (plan.addTrack.length > 0) await mergeTrackPointsInTransaction(db, plan.addTrack.map((p) => ({ ms: Date.parse(p.time), p })));
+      if (plan.addTrack.length > 0) await mergeTrackPointsInTransaction(db, plan.addTrack.map(toTimed));
       if (photoRows.length > 0) await db.photos.bulkAdd(photoRows);
     });
   } catch (err) {

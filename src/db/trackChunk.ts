@@ -63,6 +63,56 @@ export function canonicalTime(ms: number): string {
 export interface TimedPoint {
   ms: number;
   p: TrackPoint;
+  /** True when `p.time` is known to be the canonical text of `ms` (saves building it to compare). */
+  canon?: boolean;
+}
+
+const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+/**
+ * Epoch milliseconds of a time written `YYYY-MM-DDTHH:MM:SS[.fraction]Z` with every field in its
+ * calendar range (years 1970-9999), read digit by digit: a million fixes are parsed on every
+ * bulk import, and Date.parse with the format check costs several times more. NaN for any other
+ * text; the caller then asks Date.parse, which decides as before.
+ */
+export function parseTrackTime(s: string): number {
+  const n = s.length;
+  if (n < 20 || n > 30 || s.charCodeAt(n - 1) !== 90 /* Z */) return NaN;
+  if (s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(10) !== 84 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
+  const d = (i: number) => {
+    const c = s.charCodeAt(i) - 48;
+    return c >= 0 && c <= 9 ? c : NaN;
+  };
+  const year = d(0) * 1000 + d(1) * 100 + d(2) * 10 + d(3);
+  const month = d(5) * 10 + d(6);
+  const day = d(8) * 10 + d(9);
+  const hour = d(11) * 10 + d(12);
+  const minute = d(14) * 10 + d(15);
+  const second = d(17) * 10 + d(18);
+  let ms = 0;
+  if (n > 20) {
+    if (s.charCodeAt(19) !== 46 /* . */ || n === 21) return NaN;
+    // Date.parse keeps milliseconds and drops finer digits; so does this.
+    for (let i = 20; i < n - 1; i++) {
+      const c = d(i);
+      if (c !== c) return NaN;
+      if (i < 23) ms += c * (i === 20 ? 100 : i === 21 ? 10 : 1);
+    }
+  } else if (s.charCodeAt(19) !== 90) return NaN;
+  if (!(year >= 1970 && month >= 1 && month <= 12 && day >= 1 && hour <= 23 && minute <= 59 && second <= 59)) return NaN;
+  if (day > (DAYS_IN_MONTH[month - 1] as number) || (month === 2 && day === 29 && !(year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0)))) return NaN;
+  return Date.UTC(year, month - 1, day, hour, minute, second, ms);
+}
+
+/** A point with its instant: the fast reader first, Date.parse for any other text. */
+export function toTimed(p: TrackPoint): TimedPoint {
+  const fast = parseTrackTime(p.time);
+  return fast === fast ? { ms: fast, p, canon: isCanonicalText(p.time, fast) } : { ms: Date.parse(p.time), p };
+}
+
+/** Whether a text that parseTrackTime read is the canonical text of its instant. */
+export function isCanonicalText(text: string, ms: number): boolean {
+  return text.length === 20 || (text.length === 24 && ms % 1000 !== 0);
 }
 
 /** Track order: the instant, then the text (two texts of one instant are two stored points). */
@@ -105,7 +155,7 @@ export function encodeChunk(cruiseId: string, hour: IsoUtc, pts: readonly TimedP
       if (lastIndex < 0) lastIndex = row.sources.push(p.source) - 1;
     }
     row.source[i] = lastIndex;
-    if (p.time !== canonicalIn(prefix, hourMs, ms)) row.timeText.push([i, p.time]);
+    if (!(pts[i] as TimedPoint).canon && p.time !== canonicalIn(prefix, hourMs, ms)) row.timeText.push([i, p.time]);
   }
   return row;
 }
@@ -140,7 +190,8 @@ export function decodeChunk(c: TrackChunkRow): TrackPoint[] {
 
 /** The chunk's points with their instants, for merging. */
 export function timedPoints(c: TrackChunkRow): TimedPoint[] {
-  return decodeChunk(c).map((p, i) => ({ ms: c.time[i] as number, p }));
+  const exact = new Set(c.timeText.map(([i]) => i));
+  return decodeChunk(c).map((p, i) => ({ ms: c.time[i] as number, p, canon: !exact.has(i) }));
 }
 
 /**
@@ -148,6 +199,10 @@ export function timedPoints(c: TrackChunkRow): TimedPoint[] {
  * the list wins, as a put of the same key would).
  */
 export function sortUnique(pts: TimedPoint[]): TimedPoint[] {
+  // Strictly increasing instants (a live track) can hold no two copies of one time text.
+  let increasing = true;
+  for (let i = 1; i < pts.length && increasing; i++) if ((pts[i] as TimedPoint).ms <= (pts[i - 1] as TimedPoint).ms) increasing = false;
+  if (increasing) return pts.slice();
   const seen = new Map<string, number>();
   let dup = false;
   for (let i = 0; i < pts.length; i++) {
@@ -164,7 +219,45 @@ export function sortUnique(pts: TimedPoint[]): TimedPoint[] {
 /** The chunk with `incoming` points merged in; a point with a stored time text replaces it. */
 export function mergeIntoChunk(cruiseId: string, hour: IsoUtc, stored: TrackChunkRow | undefined, incoming: TimedPoint[]): TrackChunkRow {
   if (!stored || stored.count === 0) return encodeChunk(cruiseId, hour, sortUnique(incoming));
+  const fresh = sortUnique(incoming);
+  const first = fresh[0];
+  // The live case: every new fix comes after the stored ones; the columns grow without decoding.
+  if (first && first.ms > (stored.time[stored.count - 1] as number)) return appendToChunk(stored, encodeChunk(cruiseId, hour, fresh));
   return encodeChunk(cruiseId, hour, sortUnique([...timedPoints(stored), ...incoming]));
+}
+
+/** `b`'s points after `a`'s (all of them later), as one chunk. */
+function appendToChunk(a: TrackChunkRow, b: TrackChunkRow): TrackChunkRow {
+  const n = a.count + b.count;
+  const join = <T extends Float64Array | Uint8Array>(x: T, y: T, make: (n: number) => T): T => {
+    const out = make(n);
+    out.set(x.subarray(0, a.count));
+    out.set(y.subarray(0, b.count), a.count);
+    return out;
+  };
+  const f64 = (len: number) => new Float64Array(len);
+  const sources = [...a.sources];
+  const remap = b.sources.map((name) => {
+    const k = sources.indexOf(name);
+    return k >= 0 ? k : sources.push(name) - 1;
+  });
+  const source = new Uint8Array(n);
+  source.set(a.source.subarray(0, a.count));
+  for (let i = 0; i < b.count; i++) source[a.count + i] = remap[b.source[i] as number] as number;
+  return {
+    cruiseId: a.cruiseId,
+    hour: a.hour,
+    count: n,
+    time: join(a.time, b.time, f64),
+    lat: join(a.lat, b.lat, f64),
+    lon: join(a.lon, b.lon, f64),
+    speed: join(a.speed, b.speed, f64),
+    course: join(a.course, b.course, f64),
+    heading: join(a.heading, b.heading, f64),
+    source,
+    sources,
+    timeText: [...a.timeText, ...b.timeText.map(([i, t]): [number, string] => [a.count + i, t])],
+  };
 }
 
 /** Groups points by UTC hour, keeping the list order within each hour. */
@@ -227,7 +320,7 @@ export function chunksOf(points: readonly TrackPoint[]): TrackChunkRow[] {
   for (const p of points) {
     let l = byCruise.get(p.cruiseId);
     if (!l) byCruise.set(p.cruiseId, (l = []));
-    l.push({ ms: Date.parse(p.time), p });
+    l.push(toTimed(p));
   }
   const out: TrackChunkRow[] = [];
   for (const [cruiseId, list] of byCruise) for (const [hour, g] of groupByHour(list)) out.push(encodeChunk(cruiseId, hour, sortUnique(g)));

@@ -7,7 +7,7 @@ import type { IsoUtc, TrackPoint } from '../domain/model';
 import { getDb, writableDb } from './connection';
 import type { FloeDatabase } from './database';
 import { BulkWriteInterruptedError, mapWriteError } from './errors';
-import { decodeChunk, groupByHour, hourOf, lowerBound, mergeIntoChunk, timeTextAt, upperBound, type TimedPoint, type TrackChunkRow } from './trackChunk';
+import { decodeChunk, groupByHour, hourOf, parseTrackTime, toTimed, lowerBound, mergeIntoChunk, timeTextAt, upperBound, type TimedPoint, type TrackChunkRow } from './trackChunk';
 import { checkTrackPoint } from './validate';
 
 export const DEFAULT_TRACK_CHUNK = 50_000;
@@ -29,8 +29,9 @@ function timed(points: readonly TrackPoint[]): TimedPoint[] {
   const out = new Array<TimedPoint>(points.length);
   for (let i = 0; i < points.length; i++) {
     const p = points[i] as TrackPoint;
-    checkTrackPoint(p, i);
-    out[i] = { ms: Date.parse(p.time), p };
+    const fast = typeof p.time === 'string' ? parseTrackTime(p.time) : NaN;
+    checkTrackPoint(p, i, fast === fast);
+    out[i] = toTimed(p);
   }
   return out;
 }

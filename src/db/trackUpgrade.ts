@@ -3,7 +3,7 @@
 // leaves the database at version 3 or lower with every point still in `trackPoints`.
 import type { Transaction } from 'dexie';
 import type { TrackPoint } from '../domain/model';
-import { compareTimed, encodeChunk, hourOf, mergeIntoChunk, type TimedPoint, type TrackChunkRow } from './trackChunk';
+import { compareTimed, encodeChunk, hourOf, mergeIntoChunk, toTimed, type TimedPoint, type TrackChunkRow } from './trackChunk';
 
 /** Rows read per request: bounds the memory of the upgrade, whatever the track's length. */
 const PAGE = 20_000;
@@ -35,14 +35,14 @@ export async function convertTrackPointsToChunks(tx: Transaction): Promise<void>
     const page = await (last === undefined ? from.orderBy(':id') : from.where(':id').above(last)).limit(PAGE).toArray();
     if (page.length === 0) break;
     for (const p of page) {
-      const ms = Date.parse(p.time);
-      const hour = hourOf(ms);
+      const x = toTimed(p);
+      const hour = hourOf(x.ms);
       if (p.cruiseId !== groupCruise || hour !== groupHour) {
         await flush();
         groupCruise = p.cruiseId;
         groupHour = hour;
       }
-      group.push({ ms, p });
+      group.push(x);
     }
     const tail = page[page.length - 1] as TrackPoint;
     last = [tail.cruiseId, tail.time];

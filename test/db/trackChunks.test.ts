@@ -10,6 +10,7 @@ import {
   countTrackPoints,
   FloeDatabase,
   getDb,
+  isIsoUtc,
   listTrackChunks,
   listTrackPoints,
   openFloeDb,
@@ -17,7 +18,7 @@ import {
   selectDatabase,
   trackPointAtOrBefore,
 } from '../../src/db';
-import { canonicalTime, decodeChunk, encodeChunk, hourOf, sortUnique, type TimedPoint } from '../../src/db/trackChunk';
+import { canonicalTime, decodeChunk, encodeChunk, hourOf, isCanonicalText, parseTrackTime, sortUnique, type TimedPoint } from '../../src/db/trackChunk';
 import { fixtureFiles, loadFixture, readFixture } from './fixtures/load';
 import { freshDatabasePerTest } from './helpers';
 
@@ -49,6 +50,36 @@ describe('track chunk codec', () => {
     expect(hourOf(Date.parse('2026-02-10T07:00:00Z'))).toBe('2026-02-10T07:00:00Z');
     expect(canonicalTime(Date.parse('2026-02-10T06:05:09Z'))).toBe('2026-02-10T06:05:09Z');
     expect(canonicalTime(Date.parse('2026-02-10T06:05:09.05Z'))).toBe('2026-02-10T06:05:09.050Z');
+  });
+
+  it('reads times digit by digit exactly as Date.parse does, or leaves them to it (fast-check)', () => {
+    const two = (max: number) => fc.integer({ min: 0, max }).map((n) => String(n).padStart(2, '0'));
+    const arbText = fc
+      .tuple(
+        fc.integer({ min: 1960, max: 2100 }).map(String),
+        two(13),
+        two(32),
+        two(25),
+        two(60),
+        two(61),
+        fc.constantFrom('', '.', '.5', '.05', '.000', '.123', '.1234', '.123456789', '.1234567890', '.x'),
+        fc.constantFrom('Z', 'Z', 'Z', 'z', '+00:00', ''),
+      )
+      .map(([y, mo, d, h, mi, s, f, z]) => `${y}-${mo}-${d}T${h}:${mi}:${s}${f}${z}`);
+    fc.assert(
+      fc.property(fc.oneof(arbText, fc.string()), (text) => {
+        const fast = parseTrackTime(text);
+        if (Number.isNaN(fast)) return;
+        expect(isIsoUtc(text), text).toBe(true);
+        expect(fast, text).toBe(Date.parse(text));
+        expect(isCanonicalText(text, fast), text).toBe(text === canonicalTime(fast));
+      }),
+      { numRuns: 5_000 },
+    );
+    // Plain cases it must take itself (not hand to Date.parse).
+    expect(parseTrackTime('2024-02-29T23:59:59Z')).toBe(Date.UTC(2024, 1, 29, 23, 59, 59));
+    expect(parseTrackTime('2026-02-10T06:05:09.05Z')).toBe(Date.UTC(2026, 1, 10, 6, 5, 9, 50));
+    expect(parseTrackTime('2026-02-29T00:00:00Z')).toBeNaN();
   });
 
   it('gives back every point exactly: time text, numbers, sources, values left out', () => {
