@@ -79,29 +79,41 @@ export function parseTrackTime(s: string): number {
   const n = s.length;
   if (n < 20 || n > 30 || s.charCodeAt(n - 1) !== 90 /* Z */) return NaN;
   if (s.charCodeAt(4) !== 45 || s.charCodeAt(7) !== 45 || s.charCodeAt(10) !== 84 || s.charCodeAt(13) !== 58 || s.charCodeAt(16) !== 58) return NaN;
-  const d = (i: number) => {
-    const c = s.charCodeAt(i) - 48;
-    return c >= 0 && c <= 9 ? c : NaN;
-  };
-  const year = d(0) * 1000 + d(1) * 100 + d(2) * 10 + d(3);
-  const month = d(5) * 10 + d(6);
-  const day = d(8) * 10 + d(9);
-  const hour = d(11) * 10 + d(12);
-  const minute = d(14) * 10 + d(15);
-  const second = d(17) * 10 + d(18);
+  // Each digit minus '0'; a non-digit gives a value outside 0-9, caught by `bad` below.
+  const y0 = s.charCodeAt(0) - 48, y1 = s.charCodeAt(1) - 48, y2 = s.charCodeAt(2) - 48, y3 = s.charCodeAt(3) - 48;
+  const mo0 = s.charCodeAt(5) - 48, mo1 = s.charCodeAt(6) - 48, d0 = s.charCodeAt(8) - 48, d1 = s.charCodeAt(9) - 48;
+  const h0 = s.charCodeAt(11) - 48, h1 = s.charCodeAt(12) - 48, mi0 = s.charCodeAt(14) - 48, mi1 = s.charCodeAt(15) - 48;
+  const s0 = s.charCodeAt(17) - 48, s1 = s.charCodeAt(18) - 48;
+  if (((y0 | y1 | y2 | y3 | mo0 | mo1 | d0 | d1 | h0 | h1 | mi0 | mi1 | s0 | s1) & ~15) !== 0) return NaN;
+  if (y0 > 9 || y1 > 9 || y2 > 9 || y3 > 9 || mo1 > 9 || d1 > 9 || h1 > 9 || mi1 > 9 || s1 > 9) return NaN;
+  const year = y0 * 1000 + y1 * 100 + y2 * 10 + y3;
+  const month = mo0 * 10 + mo1;
+  const day = d0 * 10 + d1;
+  const hour = h0 * 10 + h1;
+  const minute = mi0 * 10 + mi1;
+  const second = s0 * 10 + s1;
   let ms = 0;
   if (n > 20) {
     if (s.charCodeAt(19) !== 46 /* . */ || n === 21) return NaN;
     // Date.parse keeps milliseconds and drops finer digits; so does this.
     for (let i = 20; i < n - 1; i++) {
-      const c = d(i);
-      if (c !== c) return NaN;
-      if (i < 23) ms += c * (i === 20 ? 100 : i === 21 ? 10 : 1);
+      const c = s.charCodeAt(i) - 48;
+      if (c < 0 || c > 9) return NaN;
+      if (i === 20) ms += c * 100;
+      else if (i === 21) ms += c * 10;
+      else if (i === 22) ms += c;
     }
   } else if (s.charCodeAt(19) !== 90) return NaN;
-  if (!(year >= 1970 && month >= 1 && month <= 12 && day >= 1 && hour <= 23 && minute <= 59 && second <= 59)) return NaN;
-  if (day > (DAYS_IN_MONTH[month - 1] as number) || (month === 2 && day === 29 && !(year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0)))) return NaN;
-  return Date.UTC(year, month - 1, day, hour, minute, second, ms);
+  if (year < 1970 || month < 1 || month > 12 || day < 1 || hour > 23 || minute > 59 || second > 59) return NaN;
+  const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
+  if (day > (month === 2 ? (leap ? 29 : 28) : (DAYS_IN_MONTH[month - 1] as number))) return NaN;
+  // Days since 1970-01-01 of a proleptic Gregorian date (the civil-from-days method in reverse).
+  const yy = month <= 2 ? year - 1 : year;
+  const era = Math.floor(yy / 400);
+  const yoe = yy - era * 400;
+  const doy = Math.floor((153 * (month + (month > 2 ? -3 : 9)) + 2) / 5) + day - 1;
+  const days = era * 146_097 + yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy - 719_468;
+  return days * 86_400_000 + hour * 3_600_000 + minute * 60_000 + second * 1000 + ms;
 }
 
 /** A point with its instant: the fast reader first, Date.parse for any other text. */

@@ -10,7 +10,7 @@ import { BulkWriteInterruptedError, mapWriteError } from './errors';
 import { decodeChunk, groupByHour, hourOf, parseTrackTime, toTimed, lowerBound, mergeIntoChunk, timeTextAt, upperBound, type TimedPoint, type TrackChunkRow } from './trackChunk';
 import { checkTrackPoint } from './validate';
 
-export const DEFAULT_TRACK_CHUNK = 50_000;
+export const DEFAULT_TRACK_CHUNK = 100_000;
 
 export interface AddTrackPointsOptions {
   /** Points per transaction. Each batch is stored entirely or not at all. */
