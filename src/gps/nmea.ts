@@ -147,15 +147,17 @@ function int(fields: readonly string[], i: number, name: string, range: [number,
   return num(fields, i, name, range);
 }
 
+const TIME_OF_DAY = /^\d{6}(?:\.\d+)?$/;
+
 /** `hhmmss` or `hhmmss.ss` to seconds of day. */
 function time(fields: readonly string[], i: number): SecondsOfDay | null {
   const s = fields[i] ?? '';
   if (s === '') return null;
-  const m = /^(\d\d)(\d\d)(\d\d(?:\.\d+)?)$/.exec(s);
-  if (!m) throw new FieldError('time', `time "${s}" is not hhmmss.ss`);
-  const h = Number(m[1]);
-  const mi = Number(m[2]);
-  const sec = Number(m[3]);
+  if (!TIME_OF_DAY.test(s)) throw new FieldError('time', `time "${s}" is not hhmmss.ss`);
+  // Digits by position: no capture groups, no substrings (a log has a time on every fix).
+  const h = (s.charCodeAt(0) - 48) * 10 + s.charCodeAt(1) - 48;
+  const mi = (s.charCodeAt(2) - 48) * 10 + s.charCodeAt(3) - 48;
+  const sec = s.length === 6 ? (s.charCodeAt(4) - 48) * 10 + s.charCodeAt(5) - 48 : Number(s.slice(4));
   // 60 allows a leap second.
   if (h > 23 || mi > 59 || sec >= 61) throw new FieldError('time', `time "${s}" is not a valid time of day`);
   return h * 3600 + mi * 60 + sec;
@@ -178,18 +180,20 @@ function date(fields: readonly string[], i: number): UtcDate | null {
   return { year, month, day };
 }
 
-const LATITUDE = /^(\d{2})(\d\d(?:\.\d+)?)$/;
-const LONGITUDE = /^(\d{3})(\d\d(?:\.\d+)?)$/;
+const LATITUDE = /^\d{4}(?:\.\d+)?$/;
+const LONGITUDE = /^\d{5}(?:\.\d+)?$/;
 
 /** `ddmm.mmmm` + hemisphere, or `dddmm.mmmm` for longitude, to signed decimal degrees. */
 function coordinate(fields: readonly string[], i: number, axis: 'latitude' | 'longitude'): number | null {
   const v = fields[i] ?? '';
   const hemi = fields[i + 1] ?? '';
   if (v === '' && hemi === '') return null;
-  const m = (axis === 'latitude' ? LATITUDE : LONGITUDE).exec(v);
-  if (!m) throw new FieldError(axis, `${axis} "${v}" is not ${axis === 'latitude' ? 'ddmm.mmmm' : 'dddmm.mmmm'}`);
-  const deg = Number(m[1]);
-  const min = Number(m[2]);
+  const lat = axis === 'latitude';
+  if (!(lat ? LATITUDE : LONGITUDE).test(v)) throw new FieldError(axis, `${axis} "${v}" is not ${lat ? 'ddmm.mmmm' : 'dddmm.mmmm'}`);
+  const degDigits = lat ? 2 : 3;
+  let deg = 0;
+  for (let k = 0; k < degDigits; k++) deg = deg * 10 + v.charCodeAt(k) - 48;
+  const min = Number(v.slice(degDigits));
   if (min >= 60) throw new FieldError(axis, `${axis} "${v}" has ${min} minutes`);
   const value = deg + min / 60;
   const max = axis === 'latitude' ? 90 : 180;

@@ -2,7 +2,7 @@
 import type { Observation, TrackPoint } from '../../../src/domain/model';
 import { CRUISE_INPUT } from '../../db/fixtures/demo-cruise';
 import { addTrackPoints, createCruise, DEFAULT_TRACK_CHUNK, getDb, saveObservation, type ObservationInput, type TrackChunkRow } from '../../../src/db';
-import { chunksOf } from '../../../src/db/trackChunk';
+import { chunksOf, toTimed } from '../../../src/db/trackChunk';
 import { applyMergePlan, loadMergeTarget } from '../../../src/db/importPlan';
 import { countTrackPoints } from '../../../src/db';
 import { exportLogJson } from '../../../src/format/encode';
@@ -164,4 +164,25 @@ export async function benchImport(observations: number, trackPoints: number): Pr
   const subject = performance.now() - t0;
   if ((await countTrackPoints(r.bundle.cruise.id)) !== trackPoints) throw new Error('the import lost track points');
   return { subject, baseline, bytes, stages: { read, merge, apply } };
+}
+
+/** Where the time of storing `n` points goes: reading times, building chunks, the writes. */
+export async function benchTrackStages(n: number): Promise<Record<string, number>> {
+  const rows = points('bench-stages', n);
+  let t0 = performance.now();
+  const timed = rows.map(toTimed);
+  const read = performance.now() - t0;
+  t0 = performance.now();
+  const chunks = chunksOf(rows);
+  const build = performance.now() - t0;
+  const db = getDb();
+  t0 = performance.now();
+  await db.transaction('rw', db.trackChunks, () => db.trackChunks.bulkPut(chunks));
+  const write = performance.now() - t0;
+  await db.trackChunks.clear();
+  t0 = performance.now();
+  await addTrackPoints(rows);
+  const whole = performance.now() - t0;
+  await db.trackChunks.clear();
+  return { read, build, write, whole, points: timed.length };
 }
