@@ -4,11 +4,11 @@ import { CRUISE_INPUT } from '../../db/fixtures/demo-cruise';
 import { addTrackPoints, createCruise, DEFAULT_TRACK_CHUNK, getDb, saveObservation, type ObservationInput, type TrackChunkRow } from '../../../src/db';
 import { chunksOf, toTimed } from '../../../src/db/trackChunk';
 import { applyMergePlan, loadMergeTarget } from '../../../src/db/importPlan';
-import { countTrackPoints } from '../../../src/db';
+import { countTrackPoints, exportLogPieces, readCruiseExport } from '../../../src/db';
+import { piecesToBlob } from '../../../src/features/exchange/exportFiles';
 import { exportLogJson } from '../../../src/format/encode';
 import { planMerge } from '../../../src/format/merge';
 import { readLogText } from '../../../src/format/read';
-import { bigCruise } from '../../bench/bigCruise';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -139,19 +139,18 @@ export async function benchLiveFix(rounds: number): Promise<{ subject: number; b
 }
 
 /**
- * The full-size log (built here from the invented demo cruise) imported into an empty store the
- * way the Exchange screen does it: read (size, scan, parse, schema, checks, rules), merge plan,
- * one-transaction apply. JSON.parse of the same text is the context baseline.
+ * A log file fetched from the test server and imported into the store the way the Exchange
+ * screen does it: the file's text, read (size, scan, parse, schema, checks, rules), merge plan,
+ * one-transaction apply. Then JSON.parse of the same text alone, as context.
  */
-export async function benchImport(observations: number, trackPoints: number): Promise<{ subject: number; baseline: number; bytes: number; stages: Record<string, number> }> {
-  // Held in an object so the text can be let go before the apply, as the screen does.
-  const file = { text: exportLogJson(bigCruise(observations, trackPoints)).join('') };
-  const bytes = file.text.length;
+export async function benchImport(url: string): Promise<{ subject: number; baseline: number; bytes: number; cruiseId: string; stages: Record<string, number>; points: number }> {
   let t0 = performance.now();
-  JSON.parse(file.text);
-  const baseline = performance.now() - t0;
+  const file = { text: await (await fetch(url)).text() };
+  const fetched = performance.now() - t0;
+  const bytes = file.text.length;
   t0 = performance.now();
   const r = readLogText(file.text);
+  // Let go of the text before the apply, as the screen does once it has the bundle.
   file.text = '';
   const read = performance.now() - t0;
   if (!r.ok) throw new Error(`the benchmark log was rejected: ${r.problems.listed[0]?.message}`);
@@ -162,8 +161,31 @@ export async function benchImport(observations: number, trackPoints: number): Pr
   await applyMergePlan(plan, { source: 'bench.json' });
   const apply = performance.now() - t2;
   const subject = performance.now() - t0;
-  if ((await countTrackPoints(r.bundle.cruise.id)) !== trackPoints) throw new Error('the import lost track points');
-  return { subject, baseline, bytes, stages: { read, merge, apply } };
+  const points = await countTrackPoints(r.bundle.cruise.id);
+  return { subject, baseline: NaN, bytes, cruiseId: r.bundle.cruise.id, stages: { fetched, read, merge, apply }, points };
+}
+
+/** JSON.parse of the fetched text: the least any reader of the file must do. */
+export async function benchParseOnly(url: string): Promise<number> {
+  const text = await (await fetch(url)).text();
+  const t0 = performance.now();
+  JSON.parse(text);
+  return performance.now() - t0;
+}
+
+/** The full-log export as the Export button makes it now: streamed out of the store into a Blob. */
+export async function benchStreamExport(cruiseId: string): Promise<{ ms: number; bytes: number }> {
+  const t0 = performance.now();
+  const blob = await piecesToBlob(exportLogPieces(cruiseId), 'application/json');
+  return { ms: performance.now() - t0, bytes: blob.size };
+}
+
+/** The same export read whole (one bundle, one parts list), as it was before. */
+export async function benchWholeExport(cruiseId: string): Promise<{ ms: number; bytes: number }> {
+  const t0 = performance.now();
+  const { bundle } = await readCruiseExport(cruiseId);
+  const blob = new Blob(exportLogJson(bundle), { type: 'application/json' });
+  return { ms: performance.now() - t0, bytes: blob.size };
 }
 
 /** Where the time of storing `n` points goes: reading times, building chunks, the writes. */
