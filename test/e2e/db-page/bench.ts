@@ -3,6 +3,7 @@ import type { Observation, TrackPoint } from '../../../src/domain/model';
 import { CRUISE_INPUT } from '../../db/fixtures/demo-cruise';
 import { addTrackPoints, createCruise, DEFAULT_TRACK_CHUNK, getDb, saveObservation, type ObservationInput, type TrackChunkRow } from '../../../src/db';
 import { chunksOf, toTimed } from '../../../src/db/trackChunk';
+import { mergeTrackPointsInTransaction } from '../../../src/db/trackPoints';
 import { applyMergePlan, loadMergeTarget } from '../../../src/db/importPlan';
 import { countTrackPoints, exportLogPieces, readCruiseExport } from '../../../src/db';
 import { piecesToBlob } from '../../../src/features/exchange/exportFiles';
@@ -207,4 +208,27 @@ export async function benchTrackStages(n: number): Promise<Record<string, number
   const whole = performance.now() - t0;
   await db.trackChunks.clear();
   return { read, build, write, whole, points: timed.length };
+}
+
+/** Where an import's apply spends its time: the observations' write and the track's, apart. */
+export async function benchApplyParts(url: string): Promise<Record<string, number>> {
+  const r = readLogText(await (await fetch(url)).text());
+  if (!r.ok) throw new Error('rejected');
+  const plan = planMerge(await loadMergeTarget(r.bundle.cruise.id), r.bundle);
+  const db = getDb();
+  let t0 = performance.now();
+  await db.transaction('rw', db.observations, () => db.observations.bulkPut(plan.putCurrent));
+  const observations = performance.now() - t0;
+  t0 = performance.now();
+  const timed = plan.addTrack.map(toTimed);
+  const times = performance.now() - t0;
+  t0 = performance.now();
+  await db.transaction('rw', db.trackChunks, () => mergeTrackPointsInTransaction(db, timed));
+  const track = performance.now() - t0;
+  await db.observations.clear();
+  await db.trackChunks.clear();
+  t0 = performance.now();
+  await applyMergePlan(plan, { source: 'bench.json' });
+  const apply = performance.now() - t0;
+  return { observations, times, track, apply };
 }
