@@ -116,6 +116,12 @@ export function parseTrackTime(s: string): number {
   return days * 86_400_000 + hour * 3_600_000 + minute * 60_000 + second * 1000 + ms;
 }
 
+/** The instant of a time text: the fast reader first, Date.parse for any other text. */
+export function instantOf(text: string): number {
+  const fast = parseTrackTime(text);
+  return fast === fast ? fast : Date.parse(text);
+}
+
 /** A point with its instant: the fast reader first, Date.parse for any other text. */
 export function toTimed(p: TrackPoint): TimedPoint {
   const fast = parseTrackTime(p.time);

@@ -7,7 +7,7 @@ import type { IsoUtc, TrackPoint } from '../domain/model';
 import { getDb, writableDb } from './connection';
 import type { FloeDatabase } from './database';
 import { BulkWriteInterruptedError, mapWriteError } from './errors';
-import { decodeChunk, groupByHour, hourOf, parseTrackTime, toTimed, lowerBound, mergeIntoChunk, timeTextAt, upperBound, type TimedPoint, type TrackChunkRow } from './trackChunk';
+import { decodeChunk, groupByHour, HOUR_MS, hourOf, instantOf, parseTrackTime, toTimed, lowerBound, mergeIntoChunk, timeTextAt, upperBound, type TimedPoint, type TrackChunkRow } from './trackChunk';
 import { checkTrackPoint } from './validate';
 
 export const DEFAULT_TRACK_CHUNK = 100_000;
@@ -129,12 +129,14 @@ export function allTrackChunksIn(db: FloeDatabase, cruiseId: string): Promise<Tr
  * planner (it asks once per incoming point).
  */
 export function storedTrackTimes(chunks: readonly TrackChunkRow[]): (time: string) => boolean {
-  const byHour = new Map<string, Pick<TrackChunkRow, 'count' | 'time' | 'timeText'>>();
-  for (const c of chunks) byHour.set(c.hour, { count: c.count, time: c.time, timeText: c.timeText });
+  // Keyed by hour number, so a million questions build no hour texts.
+  const byHour = new Map<number, Pick<TrackChunkRow, 'count' | 'time' | 'timeText'>>();
+  for (const c of chunks) byHour.set(Date.parse(c.hour) / HOUR_MS, { count: c.count, time: c.time, timeText: c.timeText });
   return (time) => {
-    const ms = Date.parse(time);
+    if (byHour.size === 0) return false;
+    const ms = instantOf(time);
     if (Number.isNaN(ms)) return false;
-    const c = byHour.get(hourOf(ms));
+    const c = byHour.get(Math.floor(ms / HOUR_MS));
     if (!c) return false;
     const i = lowerBound(c, ms, time);
     return i < c.count && c.time[i] === ms && timeTextAt(c, i) === time;
