@@ -30,9 +30,21 @@ export {
   type DeleteOptions,
   type ListObservationsQuery,
 } from './observations';
-export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore, DEFAULT_TRACK_CHUNK, type AddTrackPointsOptions, type AddTrackPointsResult } from './trackPoints';
+export {
+  addTrackPoints,
+  listTrackPoints,
+  listTrackChunks,
+  countTrackPoints,
+  trackPointAtOrBefore,
+  DEFAULT_TRACK_CHUNK,
+  type AddTrackPointsOptions,
+  type AddTrackPointsResult,
+  type TrackRange,
+} from './trackPoints';
+export { decodeChunk, pointAt, type TrackChunkRow } from './trackChunk';
 export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';
 export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
 export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';
+export { exportLogPieces, type ExportStreamOptions } from './exportStream';

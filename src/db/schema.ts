@@ -3,6 +3,7 @@
 // rows must change shape, an `upgrade` function. See docs/dev/db.md.
 import type { Transaction } from 'dexie';
 import { upgradeToIceTypeGroups } from './upgradeIceTypes';
+import { convertTrackPointsToChunks } from './trackUpgrade';
 
 export interface SchemaVersion {
   version: number;
@@ -65,6 +66,26 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
     },
     upgrade: upgradeToIceTypeGroups,
     rewrites: ['observations', 'revisions', 'conflicts', 'drafts'],
+  },
+  {
+    version: 4,
+    note: 'track stored in chunks: one trackChunks row per cruise and UTC hour with columnar typed arrays; trackPoints rows converted and the table removed',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: null,
+      // One row per cruise and UTC hour (also the unit of a sync document). The second index
+      // carries the point count, so counting a track reads index keys, not the arrays.
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+    },
+    rewrites: ['trackPoints'],
+    upgrade: (tx) => convertTrackPointsToChunks(tx),
   },
 ];
 

@@ -116,14 +116,21 @@ export function checkCruise(x: Cruise): void {
   if (x.endTime !== undefined) c.time('endTime', x.endTime);
 }
 
-/** Throws for the first bad point, naming its index in the list handed in. */
-export function checkTrackPoint(p: TrackPoint, index: number): void {
+/**
+ * Throws for the first bad point, naming its index in the list handed in. `timeChecked`: the
+ * caller has already read the time with the track's own parser (which accepts only valid times).
+ */
+export function checkTrackPoint(p: TrackPoint, index: number, timeChecked = false): void {
   const c = new Checker('track point');
   const at = `points.${index}`;
   if (typeof p.cruiseId !== 'string' || p.cruiseId === '') c.fail(`${at}.cruiseId`, 'must not be empty');
-  if (!isIsoUtc(p.time)) c.time(`${at}.time`, p.time);
+  if (!timeChecked && !isIsoUtc(p.time)) c.time(`${at}.time`, p.time);
   // Plain comparisons first: this runs a million times in a bulk import.
   if (!(p.lat >= -90 && p.lat <= 90)) c.number(`${at}.lat`, p.lat, -90, 90);
   if (!(p.lon >= -180 && p.lon <= 180)) c.number(`${at}.lon`, p.lon, -180, 180);
   if (!POSITION_SOURCES.includes(p.source)) c.oneOf(`${at}.source`, p.source, POSITION_SOURCES);
+  // The chunk columns keep "not known" as NaN, so a value that is present must be a number.
+  if (p.sogKn !== undefined && !Number.isFinite(p.sogKn)) c.number(`${at}.sogKn`, p.sogKn, -Infinity, Infinity);
+  if (p.cogDeg !== undefined && !Number.isFinite(p.cogDeg)) c.number(`${at}.cogDeg`, p.cogDeg, -Infinity, Infinity);
+  if (p.headingDeg !== undefined && !Number.isFinite(p.headingDeg)) c.number(`${at}.headingDeg`, p.headingDeg, -Infinity, Infinity);
 }

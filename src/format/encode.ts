@@ -243,23 +243,40 @@ export function exportLogJson(bundle: LogBundle, opts: EncodeOptions = {}): stri
   const history = groupById(bundle.history);
   const conflicts = groupById(bundle.conflicts);
   const observations = [...bundle.observations].sort((a, b) => byTime(a, b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const entry = (o: Observation): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) => {
-    const h = history.get(o.id);
-    const c = conflicts.get(o.id);
-    if (!h && !c) return markTrace(o);
-    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...markTrace(o) };
-    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision).map(markTrace);
-    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1)).map(markTrace);
-    return out;
-  };
-  const observationLines = (start: number, end: number) => {
-    const items: unknown[] = [];
-    for (let i = start; i < end; i++) {
-      if (i > start) items.push(BOUNDARY);
-      items.push(entry(observations[i] as Observation));
-    }
-    return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
-  };
+  const observationLines = (start: number, end: number) => observationsJson(observations.slice(start, end), history, conflicts);
   const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
   return writeParts(file, observations.length, observationLines, track.length, (i) => encodeTrackPoint(track[i] as TrackPoint));
+}
+
+/** Earlier revisions or conflict copies by observation id. */
+export type VersionsById = Map<string, Observation[]>;
+export { groupById };
+
+/**
+ * Observations (in file order) as their file lines joined by `,\n    `, with their history and
+ * conflict copies nested and the codes beside the terms. Each call is one JSON.stringify (the
+ * engine's fast path), so a writer that streams a log calls it once per batch.
+ */
+export function observationsJson(observations: readonly Observation[], history: VersionsById, conflicts: VersionsById): string {
+  const items: unknown[] = [];
+  for (let i = 0; i < observations.length; i++) {
+    if (i > 0) items.push(BOUNDARY);
+    items.push(entryWithVersions(observations[i] as Observation, history, conflicts));
+  }
+  return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
+}
+
+function entryWithVersions(o: Observation, history: VersionsById, conflicts: VersionsById): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) {
+  const h = history.get(o.id);
+  const c = conflicts.get(o.id);
+  if (!h && !c) return markTrace(o);
+  const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...markTrace(o) };
+  if (h) out.history = [...h].sort((a, b) => a.revision - b.revision).map(markTrace);
+  if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1)).map(markTrace);
+  return out;
+}
+
+/** Track rows as their file lines joined by `,\n    `. */
+export function trackRowsJson(rows: readonly TrackRow[]): string {
+  return trackLines((i) => rows[i] as TrackRow)(0, rows.length);
 }

@@ -37,8 +37,11 @@ function primaryKeyOf(table: string, row: unknown): unknown {
 }
 
 describe('schema versions', () => {
-  it('are numbered 1, 2, 3 ... with a note each, and every shipped version has a fixture', () => {
-    expect(SCHEMA_VERSIONS.map((v) => v.version)).toEqual(SCHEMA_VERSIONS.map((_, i) => i + 1));
+  it('are numbered in increasing order with a note each, and every shipped version has a fixture', () => {
+    // Numbers may have gaps: versions are reserved per piece of work before they merge.
+    const numbers = SCHEMA_VERSIONS.map((v) => v.version);
+    expect(numbers[0]).toBe(1);
+    for (let i = 1; i < numbers.length; i++) expect(numbers[i], `version after ${numbers[i - 1]}`).toBeGreaterThan(numbers[i - 1] as number);
     for (const v of SCHEMA_VERSIONS) expect(v.note.length, `version ${v.version} note`).toBeGreaterThan(0);
     expect(fixtureFiles().map((f) => f.version)).toEqual(SCHEMA_VERSIONS.map((v) => v.version));
   });
@@ -60,6 +63,12 @@ describe('schema versions', () => {
         const rewritten = new Set(SCHEMA_VERSIONS.filter((v) => v.version > version).flatMap((v) => v.rewrites ?? []));
         const now = await dumpComparable();
         for (const [table, rows] of Object.entries(fx.tables)) {
+          // A table a later version removed must be one its upgrade rewrote into another
+          // (checked record by record in the tests of that upgrade below).
+          if (!(table in now)) {
+            expect(rewritten.has(table), `${table} removed without a rewrite`).toBe(true);
+            continue;
+          }
           const stored = now[table] as unknown[];
           expect(stored, table).toHaveLength(rows.length);
           const keys = new Set(stored.map((r) => JSON.stringify(primaryKeyOf(table, r))));
