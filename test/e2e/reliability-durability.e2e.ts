@@ -52,7 +52,7 @@ describe('the durability the app asks for (issue 16)', () => {
     console.log(`durability: ${all.length} transactions, ${writes.length} read-write; kinds:\n  ${summary.join('\n  ')}`);
     // The probe saw the writes that matter: the observation with its revision, and the import.
     expect(writes.some((t) => t.stores.includes('observations') && t.stores.includes('revisions'))).toBe(true);
-    expect(writes.some((t) => t.stores.includes('observations') && t.stores.includes('trackPoints'))).toBe(true);
+    expect(writes.some((t) => t.stores.includes('observations') && t.stores.includes('trackChunks'))).toBe(true);
     expect(writes.filter((t) => t.durability !== 'strict')).toEqual([]);
   }, 180_000);
 });

@@ -67,11 +67,16 @@ const launch = (profile: string) => launchKillable(profile, server.url, TX_PROBE
 const TABLES = ['cruises', 'observations', 'revisions', 'conflicts', 'trackPoints', 'photos'] as const;
 const pick = (c: StoreCounts) => Object.fromEntries(TABLES.map((t) => [t, c[t] ?? 0]));
 
-/** Resolves when the page logs `text` (from the transaction probe). */
-function consoleLine(page: Page, text: string): Promise<number> {
-  return new Promise((ok) => {
+/** Resolves when the page logs `text` (from the transaction probe); fails rather than hang. */
+function consoleLine(page: Page, text: string, timeoutMs = 120_000): Promise<number> {
+  return new Promise((ok, fail) => {
+    const timer = setTimeout(() => {
+      page.off('console', on);
+      fail(new Error(`the page never logged "${text}": does the transaction probe still match the import's write?`));
+    }, timeoutMs);
     const on = (m: { text: () => string }) => {
       if (m.text() === text) {
+        clearTimeout(timer);
         page.off('console', on);
         ok(Date.now());
       }

@@ -18,7 +18,7 @@ export const TX_PROBE = `(() => {
     const tx = original.call(this, stores, mode, options);
     const names = Array.from(typeof stores === 'string' ? [stores] : stores);
     seen.push({ mode: tx.mode, durability: tx.durability === undefined ? 'unknown' : tx.durability, stores: names });
-    if (tx.mode === 'readwrite' && names.includes('observations') && names.includes('trackPoints')) {
+    if (tx.mode === 'readwrite' && names.includes('observations') && (names.includes('trackChunks') || names.includes('trackPoints'))) {
       console.log('floe-tx:start');
       tx.addEventListener('complete', () => console.log('floe-tx:complete'));
       tx.addEventListener('abort', () => console.log('floe-tx:abort'));
