@@ -45,6 +45,8 @@ export function NumberKeypad() {
   useEffect(() => {
     const onPointer = (e: PointerEvent) => {
       pointer.current = e.pointerType;
+      // A touch on the field that already has the focus fires no focusin: open the keypad here.
+      if ((e.pointerType === 'touch' || e.pointerType === 'pen') && isNumberField(e.target) && e.target === document.activeElement) setTarget(e.target);
     };
     const onFocus = (e: FocusEvent) => {
       if (isNumberField(e.target)) {
