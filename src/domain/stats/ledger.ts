@@ -11,14 +11,26 @@
 import type { Cruise, Observation } from '../model.ts';
 import { ATTRIBUTION_CAP_FACTOR } from './attribution.ts';
 import { EMPTY_TIMELINE, type DistanceTimeline } from './distanceTimeline.ts';
+import { legDistanceM } from './legDistance.ts';
 import { emptyFigures, observationFigures, type ObservationFigures, type RidgeThicknessEstimate } from './observationFigures.ts';
 import {
-  attributedNm, compareObservations, defaultRidgeEstimate, observationTimeline, trackTimeline, type CruiseReview, type TrackColumns,
+  attributedNm, compareObservations, defaultRidgeEstimate, trackTimeline, type CruiseReview, type TrackColumns,
 } from './review.ts';
-import { SeriesBuilder } from './series.ts';
+import { packSeries, unpackSeries, type PackedSeries } from './series.ts';
 import { ReviewTotals } from './totals.ts';
 
 const HOUR_MS = 3_600_000;
+
+/** The fixes of the observation timeline, with room to grow. */
+interface FixColumns {
+  t: Float64Array;
+  lat: Float64Array;
+  lon: Float64Array;
+  cum: Float64Array;
+  n: number;
+}
+
+const NO_FIXES: FixColumns = { t: new Float64Array(0), lat: new Float64Array(0), lon: new Float64Array(0), cum: new Float64Array(0), n: 0 };
 
 interface Entry {
   o: Observation;
@@ -29,6 +41,10 @@ interface Entry {
   hours: number;
   nm: number;
   inSums: boolean;
+  /** The leg to this observation's position from the previous fix, remembered with its start. */
+  legFromLat?: number;
+  legFromLon?: number;
+  legM?: number;
 }
 
 export interface ReviewLedgerOptions {
@@ -50,6 +66,7 @@ export class ReviewLedger {
   private readonly byId = new Map<string, Entry>();
   private track: DistanceTimeline | null = null;
   private timeline: DistanceTimeline = EMPTY_TIMELINE;
+  private fixes: FixColumns = NO_FIXES;
 
   constructor(options: ReviewLedgerOptions) {
     this.cruise = options.cruise;
@@ -79,6 +96,7 @@ export class ReviewLedger {
     entries.sort((a, b) => compareObservations(a.o, b.o));
     this.entries = entries;
     this.track = trackTimeline(track ?? undefined);
+    this.fixes = NO_FIXES;
     this.timeline = this.track ?? this.observationTimeline();
     for (let i = 0; i < entries.length; i++) {
       this.addNode(i);
@@ -93,42 +111,53 @@ export class ReviewLedger {
 
   /** Takes in several saves at once (one timeline update for all of them). */
   upsertMany(observations: readonly Observation[]): void {
-    let changed = false;
+    // The earliest time where a fix of the observation timeline may have changed.
+    let fromMs = Number.POSITIVE_INFINITY;
     for (const o of observations) {
       const old = this.byId.get(o.id);
-      if (old) {
-        this.removeEntry(old);
-        changed = true;
-      }
-      if (!o.deleted) {
-        this.insertEntry(this.entryFor(o));
-        changed = true;
-      }
+      if (old) this.removeEntry(old);
+      const e = o.deleted ? null : this.entryFor(o);
+      if (e) this.insertEntry(e);
+      // Most edits (a concentration corrected, a finding reviewed) move no fix.
+      if (old && e && sameFix(old.o, o)) continue;
+      fromMs = Math.min(fromMs, old?.t ?? Number.POSITIVE_INFINITY, e?.t ?? Number.POSITIVE_INFINITY);
     }
-    if (this.track === null && changed) this.refreshTimeline(this.observationTimeline());
+    if (this.track === null && fromMs !== Number.POSITIVE_INFINITY) this.refreshTimeline(this.observationTimeline(fromMs));
   }
 
   /** Takes out observations by id (as a hard delete would). */
   remove(ids: readonly string[]): void {
+    let fromMs = Number.POSITIVE_INFINITY;
     for (const id of ids) {
       const e = this.byId.get(id);
-      if (e) this.removeEntry(e);
+      if (!e) continue;
+      this.removeEntry(e);
+      fromMs = Math.min(fromMs, e.t);
     }
-    if (this.track === null) this.refreshTimeline(this.observationTimeline());
+    if (this.track === null && fromMs !== Number.POSITIVE_INFINITY) this.refreshTimeline(this.observationTimeline(fromMs));
   }
 
   /** A new track (e.g. more fixes): only observations where the distances changed are redone. */
   setTrack(track: TrackColumns | null): void {
     this.track = trackTimeline(track ?? undefined);
+    this.fixes = NO_FIXES;
     this.refreshTimeline(this.track ?? this.observationTimeline());
   }
 
   /** The figures now, as `reviewCruise` gives them for the same observations and track. */
   result(): CruiseReview {
+    return { ...this.tables(), series: unpackSeries(this.packedSeries()) };
+  }
+
+  /** The chart columns as typed arrays (what the review worker hands to the page). */
+  packedSeries(): PackedSeries {
+    return packSeries(this.entries.filter((e) => e.included), this.capMs);
+  }
+
+  /** Everything but the chart columns. */
+  tables(): Omit<CruiseReview, 'series'> {
     const entries = this.entries;
     const n = entries.length;
-    const series = new SeriesBuilder(this.capMs);
-    for (const e of entries) if (e.included) series.add(e.t, e.o, e.fig);
     const summary = this.totals.summary({
       first: entries[0]?.o,
       last: entries[n - 1]?.o,
@@ -137,7 +166,7 @@ export class ReviewLedger {
       timeline: this.timeline,
       firstWithRio: (rio) => entries.find((e) => e.included && e.fig.rio === rio)?.o ?? null,
     });
-    return { summary, bands: this.totals.bands.result(), handover: this.totals.handover.result(), series: series.series };
+    return { summary, bands: this.totals.bands.result(), handover: this.totals.handover.result() };
   }
 
   private entryFor(o: Observation): Entry {
@@ -216,9 +245,57 @@ export class ReviewLedger {
     this.addNode(j);
   }
 
-  private observationTimeline(): DistanceTimeline {
+  /**
+   * The distance timeline between the observation positions, as observationTimeline (review.ts)
+   * builds it, redone only from `fromMs` on: fixes before it are kept, and the running sum goes on
+   * from the last kept one, so the numbers are the ones the full build adds up. Legs come from a
+   * cache on the entries (an entry's position never changes: an edit makes a new entry).
+   */
+  private observationTimeline(fromMs = Number.NEGATIVE_INFINITY): DistanceTimeline {
     const entries = this.entries;
-    return observationTimeline(entries.length, (i) => (entries[i] as Entry).t, (i) => (entries[i] as Entry).o);
+    const old = this.fixes;
+    let p = 0;
+    while (p < old.n && (old.t[p] as number) < fromMs) p++;
+    const cap = Math.max(entries.length, p);
+    const f: FixColumns = { t: new Float64Array(cap), lat: new Float64Array(cap), lon: new Float64Array(cap), cum: new Float64Array(cap), n: p };
+    f.t.set(old.t.subarray(0, p));
+    f.lat.set(old.lat.subarray(0, p));
+    f.lon.set(old.lon.subarray(0, p));
+    f.cum.set(old.cum.subarray(0, p));
+    let sum = p > 0 ? (old.cum[p - 1] as number) : 0;
+    let pt = p > 0 ? (old.t[p - 1] as number) : Number.NEGATIVE_INFINITY;
+    let plat = p > 0 ? (old.lat[p - 1] as number) : 0;
+    let plon = p > 0 ? (old.lon[p - 1] as number) : 0;
+    // The same rules as buildDistanceTimelineFromColumns: finite fixes, strictly later times.
+    for (let i = fromMs === Number.NEGATIVE_INFINITY ? 0 : lowerBoundTime(entries, fromMs); i < entries.length; i++) {
+      const e = entries[i] as Entry;
+      const pos = e.o.position;
+      if (!pos) continue;
+      const ti = e.t;
+      const la = pos.lat;
+      const lo = pos.lon;
+      if (!Number.isFinite(ti) || !Number.isFinite(la) || !Number.isFinite(lo)) continue;
+      if (f.n > 0) {
+        if (ti <= pt) continue;
+        if (e.legM === undefined || e.legFromLat !== plat || e.legFromLon !== plon) {
+          e.legFromLat = plat;
+          e.legFromLon = plon;
+          e.legM = legDistanceM(plat, plon, la, lo);
+        }
+        sum += e.legM;
+      }
+      f.t[f.n] = ti;
+      f.lat[f.n] = la;
+      f.lon[f.n] = lo;
+      f.cum[f.n] = sum;
+      f.n++;
+      pt = ti;
+      plat = la;
+      plon = lo;
+    }
+    this.fixes = f;
+    if (f.n < 2) return EMPTY_TIMELINE;
+    return { source: 'observations', timesMs: f.t.subarray(0, f.n), cumulativeM: f.cum.subarray(0, f.n), totalM: sum };
   }
 
   /**
@@ -243,6 +320,9 @@ export class ReviewLedger {
     }
   }
 }
+
+const sameFix = (a: Observation, b: Observation): boolean =>
+  a.time === b.time && a.position?.lat === b.position?.lat && a.position?.lon === b.position?.lon;
 
 function lowerBoundTime(entries: readonly Entry[], t: number): number {
   let lo = 0;
