@@ -3,6 +3,7 @@
 import type { FeatureCollection } from 'geojson';
 import type { Topology } from 'topojson-specification';
 import type { TrackPoint } from '../../domain/model';
+import { packTrackInSlices } from '../../gps/trackColumns';
 import { landFromTopology } from './land';
 import MapDataWorker from './mapWorker.ts?worker&inline';
 import { mizFeatures, toleranceAtZoom, trackLevels, type PolarParts, type TrackArrays } from './trackLevels';
@@ -41,36 +42,9 @@ export interface PreparedPair {
   polar?: PolarParts;
 }
 
-const SLICE = 50_000;
-
-function yieldToPage(): Promise<void> {
-  return new Promise((resolve) => setTimeout(resolve, 0));
-}
-
-/** The track in time order as typed arrays, built a slice at a time. */
-export async function packTrack(track: readonly TrackPoint[], signal?: AbortSignal): Promise<TrackArrays> {
-  const n = track.length;
-  const t = new Float64Array(n);
-  const lon = new Float64Array(n);
-  const lat = new Float64Array(n);
-  let sorted = true;
-  for (let start = 0; start < n; start += SLICE) {
-    const end = Math.min(n, start + SLICE);
-    for (let i = start; i < end; i++) {
-      const p = track[i] as TrackPoint;
-      t[i] = Date.parse(p.time);
-      lon[i] = p.lon;
-      lat[i] = p.lat;
-      if (i > 0 && (t[i] as number) < (t[i - 1] as number)) sorted = false;
-    }
-    if (end < n) {
-      await yieldToPage();
-      if (signal?.aborted) throw new DOMException('track preparation cancelled', 'AbortError');
-    }
-  }
-  if (sorted) return { t, lon, lat };
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => (t[a] as number) - (t[b] as number));
-  return { t: Float64Array.from(order, (i) => t[i] as number), lon: Float64Array.from(order, (i) => lon[i] as number), lat: Float64Array.from(order, (i) => lat[i] as number) };
+/** The track in time order as typed arrays, built a slice at a time (src/gps/trackColumns.ts). */
+export function packTrack(track: readonly TrackPoint[], signal?: AbortSignal): Promise<TrackArrays> {
+  return packTrackInSlices(track, signal);
 }
 
 const decoder = new TextDecoder();
