@@ -50,7 +50,12 @@ export const EGG_MIN_ZOOM = 7;
  * in to where it comes apart, and the list reaches every observation too.
  */
 export const CLUSTER_MAX_ZOOM = 6;
-export const CLUSTER_RADIUS = 18;
+/**
+ * Pixels at the whole zoom MapLibre groups at; between whole zooms the screen distance grows up
+ * to twice that. 7 px groups only symbols that overlap (circles of 4-6 px radius), so any
+ * observation more than 14 px from every other keeps its own symbol at every zoom.
+ */
+export const CLUSTER_RADIUS = 7;
 
 export const SRC = {
   land110: 'land-110m',
