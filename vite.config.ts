@@ -46,7 +46,7 @@ export default defineConfig({
         test: {
           name: 'db',
           environment: 'node',
-          include: ['test/db/**/*.test.ts'],
+          include: ['test/db/**/*.test.ts', 'test/sync/**/*.test.ts'],
           setupFiles: ['test/setup/db.ts'],
         },
       },
