@@ -2,7 +2,7 @@
 // `push` and `pull`. The same documents, checks and merge rules as the app's store sync.
 import { applyPlanToBundle, bundleTarget, planMerge } from '../format/merge';
 import type { LogBundle } from '../format/types';
-import type { CouchClient } from './couch';
+import { CouchError, type CouchClient } from './couch';
 import { bundleDocs, checkPulled, type Refusal } from './documents';
 import { cruiseDatabaseName } from './ids';
 import { readPage, sendDocs, type SendResult } from './transfer';
@@ -33,7 +33,13 @@ export async function pullBundle(client: CouchClient, cruiseId: string, onProgre
   const refused: Refusal[] = [];
   let documents = 0;
   for (;;) {
-    const page = await readPage(client, db, since);
+    let page;
+    try {
+      page = await readPage(client, db, since);
+    } catch (e) {
+      if (e instanceof CouchError && e.kind === 'not-found' && documents === 0) break;
+      throw e;
+    }
     if (page.count === 0) break;
     refused.push(...page.oversized);
     const checked = checkPulled(page.docs, { cruiseId, storedCruise: bundle?.cruise ?? null });
