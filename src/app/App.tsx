@@ -10,6 +10,8 @@ import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
 import { LogBackground } from '../features/log/LogBackground';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
+import { SyncBadge } from '../features/sync/SyncBadge';
+import { SyncRunner } from '../features/sync/SyncRunner';
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -81,6 +83,8 @@ export function App() {
           </select>
         </label>
       </header>
+      <SyncBadge />
+      <SyncRunner />
       <NavigationNotice />
       <UpdateBanner />
       <LogBackground />
