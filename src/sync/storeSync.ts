@@ -19,7 +19,7 @@ import {
   type SyncStateRow,
 } from '../db';
 import type { Observation } from '../domain/model';
-import { planMerge, planIsEmpty } from '../format/merge';
+import { planMerge, planIsEmpty, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
 import { CouchClient } from './couch';
 import { checkPulled, cruiseDoc, observationDoc, trackDoc, type Refusal, type SyncDoc } from './documents';
 import { checkpointDocId, cruiseDatabaseName } from './ids';
@@ -165,6 +165,7 @@ export async function pullStore(t: SyncTarget, opts: { waitMs?: number; maxPages
   let state = await loadState(t);
   const out: PullResult = { accepted: 0, refused: [], changed: 0, conflicts: 0, caughtUp: false };
   let received = 0;
+  let target: MergeTarget | null = null;
   for (let page = 0; page < (opts.maxPages ?? Infinity); page++) {
     const p = await readPage(t.client, db, state.since, page === 0 && opts.waitMs !== undefined ? { waitMs: opts.waitMs } : {});
     if (p.count === 0) {
@@ -174,7 +175,8 @@ export async function pullStore(t: SyncTarget, opts: { waitMs?: number; maxPages
     const refused: Refusal[] = [...p.oversized];
     const accepted: SyncDoc[] = [];
     if (p.docs.length) {
-      const r = await mergePulled(t, p.docs);
+      const r = await mergePulled(t, p.docs, target);
+      target = r.target;
       refused.push(...r.refused);
       accepted.push(...r.accepted);
       out.changed += r.changed;
@@ -199,24 +201,65 @@ export async function pullStore(t: SyncTarget, opts: { waitMs?: number; maxPages
   return out;
 }
 
-/** Checks pulled documents and merges the good ones into the store, as an import does. */
-async function mergePulled(t: SyncTarget, raw: unknown[]): Promise<{ accepted: SyncDoc[]; refused: Refusal[]; changed: number; conflicts: number }> {
+/** The merge target after a plan was applied, without reading the store again. */
+function afterPlan(base: MergeTarget, plan: MergePlan): MergeTarget {
+  const current = new Map(plan.putCurrent.map((o) => [o.id, o]));
+  const others = new Map<string, Observation[]>();
+  for (const o of [...plan.addHistory, ...plan.addConflicts]) {
+    const l = others.get(o.id);
+    if (l) l.push(o);
+    else others.set(o.id, [o]);
+  }
+  const times = new Set(plan.addTrack.map((p) => p.time));
+  const photos = new Set(plan.addPhotos.map((p) => p.id));
+  return {
+    cruise: plan.cruise.value,
+    versions: (id) => {
+      const b = base.versions(id);
+      const c = current.get(id);
+      if (!b && !c) return undefined;
+      const extra = others.get(id) ?? [];
+      return { current: c ?? (b as StoredVersions).current, others: extra.length ? [...(b?.others ?? []), ...extra] : (b?.others ?? []) };
+    },
+    hasTrackTime: (t) => times.has(t) || base.hasTrackTime(t),
+    hasPhoto: (id) => photos.has(id) || base.hasPhoto(id),
+  };
+}
+
+interface Merged {
+  accepted: SyncDoc[];
+  refused: Refusal[];
+  changed: number;
+  conflicts: number;
+  /** What is stored now, for the next page. */
+  target: MergeTarget;
+}
+
+/**
+ * Checks pulled documents and merges the good ones into the store, as an import does. The
+ * target (what is stored) is carried from page to page; when an observer saved meanwhile the
+ * apply refuses the stale plan and the target is read again.
+ */
+async function mergePulled(t: SyncTarget, raw: unknown[], known: MergeTarget | null): Promise<Merged> {
+  let target = known ?? (await loadMergeTarget(t.cruiseId));
   for (let attempt = 0; ; attempt++) {
-    const target = await loadMergeTarget(t.cruiseId);
     const checked = checkPulled(raw, { cruiseId: t.cruiseId, storedCruise: target.cruise });
     const acceptedIds = new Set(checked.accepted);
     const accepted = (raw as SyncDoc[]).filter((d) => d && typeof d === 'object' && acceptedIds.has(d._id));
-    if (!checked.bundle) return { accepted, refused: checked.refused, changed: 0, conflicts: 0 };
+    const none = { accepted, refused: checked.refused, changed: 0, conflicts: 0, target };
+    if (!checked.bundle) return none;
     const plan = planMerge(target, checked.bundle);
     const c = plan.counts;
-    if (planIsEmpty(plan)) return { accepted, refused: checked.refused, changed: 0, conflicts: 0 };
+    if (planIsEmpty(plan)) return none;
     try {
       await applyMergePlan(plan, { source: `ship server ${targetKey(t)}` });
     } catch (e) {
-      // An observer saved meanwhile: plan again against the new state.
-      if (e instanceof StaleImportError && attempt < 5) continue;
+      if (e instanceof StaleImportError && attempt < 5) {
+        target = await loadMergeTarget(t.cruiseId);
+        continue;
+      }
       throw e;
     }
-    return { accepted, refused: checked.refused, changed: c.new + c.newer + c.older + c.conflict, conflicts: c.conflict };
+    return { accepted, refused: checked.refused, changed: c.new + c.newer + c.older + c.conflict, conflicts: c.conflict, target: afterPlan(target, plan) };
   }
 }
