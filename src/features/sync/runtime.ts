@@ -34,7 +34,8 @@ export function runSync(cfg: SyncConfig | null): void {
   if (cfg) {
     const client = new CouchClient({ url: cfg.url });
     const target = { client, cruiseId: cfg.cruiseId, deviceId: cfg.deviceId };
-    const engine = new SyncEngine({ ...target, pollMs: 2000 });
+    // SyncRunner nudges the engine on every change of the log; the poll is only a safety net.
+    const engine = new SyncEngine({ ...target, pollMs: 10_000 });
     running = { id, engine, key: targetKey(target) };
     engine.subscribe((s) => {
       status = s;

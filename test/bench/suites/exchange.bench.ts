@@ -21,7 +21,7 @@ const SCALE = Number(process.env.FLOE_BENCH_SCALE ?? '1');
 const OBSERVATIONS = Math.round(50_000 * SCALE);
 const TRACK_POINTS = Math.round(1_000_000 * SCALE);
 
-function bigCruise(): LogBundle {
+export function bigCruise(): LogBundle {
   const demo = demoBundle(1);
   const hour = 3_600_000;
   const t0 = Date.parse(demo.observations[0]?.time ?? '2026-03-09T00:00:00Z');
