@@ -80,6 +80,8 @@ export interface SyncServerSetting {
   url: string;
   user: string;
   enabled: boolean;
+  /** A cruise to receive from the server while this laptop has no active cruise (joining mid-cruise). */
+  joinCruiseId?: string;
 }
 
 /** A document the ship server is known to hold: sent by this laptop or pulled from it. */

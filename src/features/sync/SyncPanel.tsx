@@ -14,9 +14,11 @@ export function SyncPanel() {
   const [url, setUrl] = useState<string | null>(null);
   const [user, setUser] = useState<string | null>(null);
   const [password, setPassword] = useState('');
+  const [join, setJoin] = useState<string | null>(null);
+  const activeId = useLiveQuery(() => getSetting('activeCruiseId'), []);
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
-  const ids = { url: useId(), user: useId(), password: useId() };
+  const ids = { url: useId(), user: useId(), password: useId(), join: useId() };
   const allowed = __FLOE_SHIP_SERVERS__;
   const urlValue = url ?? saved?.url ?? allowed[0] ?? '';
   const userValue = user ?? saved?.user ?? '';
@@ -28,7 +30,8 @@ export function SyncPanel() {
     setMessage(null);
     try {
       const name = await logIn(urlValue, userValue, password);
-      await setSetting('syncServer', { url: urlValue, user: name, enabled: true });
+      const joinCruiseId = (join ?? saved?.joinCruiseId ?? '').trim();
+      await setSetting('syncServer', { url: urlValue, user: name, enabled: true, ...(joinCruiseId ? { joinCruiseId } : {}) });
       setMessage(`Signed in as ${name}. Sync is on.`);
     } catch (err) {
       setMessage(err instanceof CouchError && err.kind === 'unauthorized' ? 'The server does not accept this user and password.' : `Could not sign in: ${err instanceof Error ? err.message : String(err)}`);
@@ -68,6 +71,12 @@ export function SyncPanel() {
         <input id={ids.user} value={userValue} onChange={(e) => setUser(e.target.value)} autoComplete="username" required />
         <label htmlFor={ids.password}>Password (sent once to sign in, never kept)</label>
         <input id={ids.password} type="password" value={password} onChange={(e) => setPassword(e.target.value)} autoComplete="current-password" required />
+        {!activeId && (
+          <>
+            <label htmlFor={ids.join}>Cruise to receive (its id; this laptop has no cruise yet)</label>
+            <input id={ids.join} value={join ?? saved?.joinCruiseId ?? ''} onChange={(e) => setJoin(e.target.value)} placeholder="the cruise id the chief scientist gives" />
+          </>
+        )}
         <div className="inline">
           <button type="submit" className="button" disabled={busy || !permitted}>
             Sign in and switch sync on
@@ -77,6 +86,11 @@ export function SyncPanel() {
           </button>
         </div>
       </form>
+      {activeId && (
+        <p className="muted">
+          This laptop syncs the cruise <code data-testid="sync-cruise-id">{activeId}</code>; a laptop that joins gives this id.
+        </p>
+      )}
       {message && <p role="status">{message}</p>}
       {status && <p data-testid="sync-state">{syncText(status).text}{status.reason ? `: ${status.reason}` : ''}</p>}
       {status && status.refusedDocs.length > 0 && (

@@ -2,12 +2,20 @@
 // otherwise; wakes it when the log changes. Renders nothing.
 import { useLiveQuery } from 'dexie-react-hooks';
 import { useEffect, useState } from 'react';
-import { cruiseChangeStamp, deviceId, getSetting } from '../../db';
+import { cruiseChangeStamp, deviceId, getCruise, getSetting, setActiveCruise } from '../../db';
 import { nudgeSync, runSync } from './runtime';
 
 export function SyncRunner() {
   const server = useLiveQuery(() => getSetting('syncServer'), []);
-  const cruiseId = useLiveQuery(() => getSetting('activeCruiseId'), []);
+  const activeId = useLiveQuery(() => getSetting('activeCruiseId'), []);
+  // A laptop joining mid-cruise has no cruise yet: it receives the one named in the settings,
+  // and makes it active once its record has arrived.
+  const joinId = !activeId && server?.enabled ? (server.joinCruiseId ?? null) : null;
+  const joined = useLiveQuery(async () => (joinId ? ((await getCruise(joinId)) ?? null) : null), [joinId]);
+  useEffect(() => {
+    if (joined && !activeId) void setActiveCruise(joined.id).catch(() => undefined);
+  }, [joined, activeId]);
+  const cruiseId = activeId ?? joinId;
   const [device, setDevice] = useState<string | null>(null);
   useEffect(() => {
     void deviceId()
