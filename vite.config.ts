@@ -14,7 +14,7 @@ const shipServers = shipServerOrigins(process.env.FLOE_SHIP_SERVER);
 export default defineConfig({
   plugins: [react(), pwa(), stripCspInDev(), shipServerCsp(shipServers)],
   // A build marker the app shows and the update test checks; CI or a release may set it.
-  define: { __FLOE_BUILD__: JSON.stringify(process.env.FLOE_BUILD_ID ?? new Date().toISOString()), __FLOE_SHIP_SERVERS__: JSON.stringify(shipServers) },
+  define: { __FLOE_BUILD__: JSON.stringify(process.env.FLOE_BUILD_ID ?? new Date().toISOString()) },
   // Keep the cache in the project, not in node_modules, so several checkouts that share one
   // node_modules (git worktrees) do not trample each other's optimised deps.
   cacheDir: '.vite-cache',

@@ -6,7 +6,7 @@ import { useId, useState, type FormEvent } from 'react';
 import { getSetting, setSetting } from '../../db';
 import { CouchError } from '../../sync/couch';
 import { syncText } from './SyncBadge';
-import { allowedByPolicy, logIn, logOut, useSyncStatus } from './runtime';
+import { allowedByPolicy, logIn, logOut, policyOrigins, useSyncStatus } from './runtime';
 
 export function SyncPanel() {
   const saved = useLiveQuery(() => getSetting('syncServer'), []);
@@ -19,7 +19,7 @@ export function SyncPanel() {
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
   const ids = { url: useId(), user: useId(), password: useId(), join: useId() };
-  const allowed = __FLOE_SHIP_SERVERS__;
+  const allowed = policyOrigins() ?? [];
   const urlValue = url ?? saved?.url ?? allowed[0] ?? '';
   const userValue = user ?? saved?.user ?? '';
   const permitted = allowedByPolicy(urlValue);
@@ -55,7 +55,7 @@ export function SyncPanel() {
         With a ship server (Apache CouchDB, or <code>npm run ship-server</code> on one laptop), every saved observation, the cruise and the track go to the
         server and come to the other laptops. Without it, or offline, this laptop logs exactly as before and sends later.
       </p>
-      {allowed.length === 0 ? (
+      {policyOrigins() === null ? null : allowed.length === 0 ? (
         <p className="finding-warning">
           This build of the app may not connect to any ship server: its security policy names none. Build it with the server's address, e.g.{' '}
           <code>FLOE_SHIP_SERVER=http://192.168.1.10:5984 npm start</code>.

@@ -76,10 +76,25 @@ export async function logOut(url: string): Promise<void> {
   await new CouchClient({ url }).logOut();
 }
 
-/** Whether this build's security policy lets the app reach the address. */
+/**
+ * The origins the page's security policy lets it connect to besides itself, read from the policy
+ * the page was served with (src/app/csp.config.ts adds them); null when the page has no policy
+ * (the dev server removes it).
+ */
+export function policyOrigins(): string[] | null {
+  const meta = document.querySelector('meta[http-equiv="Content-Security-Policy"]');
+  const policy = meta?.getAttribute('content');
+  if (!policy) return null;
+  const connect = policy.split(';').map((d) => d.trim().split(/\s+/)).find((d) => d[0] === 'connect-src') ?? [];
+  return connect.slice(1).filter((s) => /^https?:\/\//.test(s));
+}
+
+/** Whether the page's security policy lets the app reach the address. */
 export function allowedByPolicy(url: string): boolean {
   try {
-    return __FLOE_SHIP_SERVERS__.includes(new URL(url).origin);
+    const origin = new URL(url).origin;
+    const allowed = policyOrigins();
+    return allowed === null || allowed.includes(origin);
   } catch {
     return false;
   }

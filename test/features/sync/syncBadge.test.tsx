@@ -25,8 +25,13 @@ describe('the sync state in words', () => {
 
 describe('the ship server settings', () => {
   it('say that a build without FLOE_SHIP_SERVER may connect to no server, and never keep a password field filled', async () => {
+    const meta = document.createElement('meta');
+    meta.httpEquiv = 'Content-Security-Policy';
+    meta.content = "default-src 'self'; connect-src 'self' blob:";
+    document.head.append(meta);
     render(<SyncPanel />);
     expect(await screen.findByText(/may not connect to any ship server/)).toBeTruthy();
+    meta.remove();
     expect((screen.getByLabelText(/Password/) as HTMLInputElement).type).toBe('password');
     expect((screen.getByRole('button', { name: /Sign in and switch sync on/ }) as HTMLButtonElement).disabled).toBe(true);
   });
