@@ -112,4 +112,32 @@ describe('the sync engine', { timeout: 90_000 }, () => {
       expect(local.observations).toHaveLength(5);
     });
   }
+
+  it('a simulated day offline with hourly saves on both sides: back online, everything arrives, in order, nothing lost', async () => {
+    const cruise = await makeCruise({ id: `cr-${crypto.randomUUID().slice(0, 8)}` });
+    const first = (await saveObservation(makeObservation(cruise.id, { time: '2026-02-09T23:00:00Z' }), { savedBy: 'obs-ak' })).observation;
+    const { engine: e } = startEngine(cruise.id, proxy.url);
+    await until('synced', () => e.status.phase === 'synced' && e.status.waiting === 0);
+    proxy.fault = 'hang';
+    const hours = Array.from({ length: 24 }, (_, h) => `2026-02-10T${String(h).padStart(2, '0')}:00:00Z`);
+    for (const time of hours) {
+      await saveObservation(makeObservation(cruise.id, { time }), { savedBy: 'obs-ak' });
+      e.nudge();
+    }
+    // The other laptop logged the same day (on the half hour) and sent it to the server meanwhile.
+    const client = new CouchClient({ url: server.url, cookies: 'manual' });
+    const theirs = hours.map((h, i) => ({ ...first, id: `b-${i}`, time: h.replace(':00:00Z', ':30:00Z'), deviceId: 'laptop-b' }));
+    await client.bulkDocs(cruiseDatabaseName(cruise.id), theirs.map(observationDoc));
+    await until('offline shown', () => e.status.phase === 'offline' && e.status.waiting >= 24);
+    proxy.fault = 'none';
+    await until('synced again', () => e.status.phase === 'synced' && e.status.waiting === 0, 30_000);
+    await until('B\'s day here', async () => (await readCruiseExport(cruise.id)).bundle.observations.length === 49, 10_000);
+    const onServer = await serverLog(cruise.id);
+    const local = (await readCruiseExport(cruise.id)).bundle;
+    expect(onServer!.observations.map(canonicalJson).sort()).toEqual(local.observations.map(canonicalJson).sort());
+    // This laptop's day reached the server in the order it was logged (the changes feed keeps the order of arrival).
+    const feed = await client.changes(cruiseDatabaseName(cruise.id), { since: '0', limit: 1000, includeDocs: true });
+    const mine = feed.results.map((r) => r.doc as { body?: { time?: string; deviceId?: string } }).filter((d) => d.body?.deviceId !== 'laptop-b' && d.body?.time?.startsWith('2026-02-10')).map((d) => d.body!.time!);
+    expect(mine).toEqual(hours);
+  });
 });
