@@ -96,7 +96,7 @@ describe('two laptops on one ship server', () => {
     await showScreen(a.page, 'Watch log');
     await logObservation(a.page, { time: '2026-03-10 06:00', position: '78 31.0 N 015 02.0 E', total: '9', notes: 'second entry, over the server' });
     const t0 = Date.now();
-    await expect.poll(() => b.page.getByTestId('observation-row').count(), { timeout: 5000, intervals: [25] }).toBe(2);
+    await expect.poll(() => b.page.getByTestId('observation-row').count(), { timeout: 5000, interval: 25 }).toBe(2);
     const seenMs = Date.now() - t0;
     expect(seenMs).toBeLessThan(5000);
 
