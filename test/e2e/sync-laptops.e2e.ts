@@ -67,7 +67,8 @@ async function signIn(page: Page, user: string, password: string, join?: string)
 
 const badge = (page: Page) => page.getByTestId('sync-badge');
 
-describe('two laptops on one ship server', () => {
+// Two browsers, a cruise set up through the screens and three saves: minutes on a loaded 2-core machine.
+describe('two laptops on one ship server', { timeout: 300_000 }, () => {
   it('B joins and receives the cruise; a save on A shows on B within 5 s, in its list and in Review', async () => {
     const a = await laptop();
     await createCruise(a.page, CRUISE);
