@@ -6,6 +6,8 @@ import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
 import { LogBackground } from '../features/log/LogBackground';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
+import { SyncBadge } from '../features/sync/SyncBadge';
+import { SyncRunner } from '../features/sync/SyncRunner';
 
 // The watch log is in the first bundle: it must be interactive at once. The other screens (the
 // map with MapLibre, the review with its charts, the exchange with its validators and zip code)
@@ -85,6 +87,8 @@ export function App() {
           </select>
         </label>
       </header>
+      <SyncBadge />
+      <SyncRunner />
       <NavigationNotice />
       <UpdateBanner />
       <LogBackground />
