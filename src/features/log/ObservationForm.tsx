@@ -116,6 +116,8 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
   const filled = filledCategories(draft);
 
   const focusId = (id: string) => {
+    // A save can finish after the page is gone (a closing tab, a torn-down test): nothing to focus.
+    if (typeof document === 'undefined') return;
     const el = document.getElementById(id);
     if (el) el.focus();
   };
