@@ -34,26 +34,33 @@ export default tseslint.config(
     files: ['src/domain/**'],
     languageOptions: { globals: { ...globals.es2022 } },
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync') }],
       'no-restricted-globals': ['error', 'window', 'document', 'navigator', 'localStorage', 'indexedDB'],
     },
   },
   {
     files: ['src/format/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli', 'sync') }],
     },
   },
   {
     files: ['src/db/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli', 'sync') }],
     },
   },
   {
     files: ['src/gps/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'cli', 'sync') }],
+    },
+  },
+  {
+    // Replication with a CouchDB server: over db/ and format/, below the screens.
+    files: ['src/sync/**'],
+    rules: {
+      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli') }],
     },
   },
   {
@@ -67,7 +74,7 @@ export default tseslint.config(
     rules: { 'no-restricted-imports': 'off' },
   },
   {
-    files: ['test/**', 'scripts/**'],
+    files: ['test/**', 'scripts/**', 'server/**'],
     rules: { 'no-restricted-imports': 'off' },
   },
 );

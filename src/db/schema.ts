@@ -87,6 +87,24 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
     rewrites: ['trackPoints'],
     upgrade: (tx) => convertTrackPointsToChunks(tx),
   },
+  {
+    version: 6,
+    note: 'syncMarks and syncState: which documents a ship server holds, and the pull checkpoint and refusals per server database (src/sync)',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+      // One row per document the server is known to hold (sent, or pulled from it).
+      syncMarks: '[server+docId], [server+cruiseId]',
+      syncState: 'key',
+    },
+  },
 ];
 
 export const LATEST_SCHEMA_VERSION = SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.version ?? 0;

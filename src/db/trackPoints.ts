@@ -144,6 +144,12 @@ export function storedTrackTimes(chunks: readonly TrackChunkRow[]): (time: strin
 }
 
 /** Track points of a cruise in time order, optionally within inclusive time bounds. */
+/** The points of one UTC hour (`YYYY-MM-DDTHH`), the unit of a sync document: one chunk read. */
+export async function trackPointsOfHour(cruiseId: string, hour: string): Promise<TrackPoint[]> {
+  const chunk = await getDb().trackChunks.get([cruiseId, `${hour}:00:00Z`]);
+  return chunk ? decodeChunk(chunk) : [];
+}
+
 export async function listTrackPoints(cruiseId: string, q: TrackRange & { limit?: number } = {}): Promise<TrackPoint[]> {
   if ((q.from !== undefined && Number.isNaN(Date.parse(q.from))) || (q.to !== undefined && Number.isNaN(Date.parse(q.to)))) return [];
   const limit = q.limit ?? Number.POSITIVE_INFINITY;

@@ -16,6 +16,7 @@ import { useActiveCruise, useObservations } from './logData';
 import { NumberKeypad } from './NumberKeypad';
 import { ObservationForm } from './ObservationForm';
 import { ObservationList } from './ObservationList';
+import { useServerMarks } from '../sync/useServerMarks';
 import { StartScreen } from './StartScreen';
 import { TrackImportPanel } from './TrackImportPanel';
 import { useTrackPosition } from './trackPosition';
@@ -59,6 +60,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
   const trackReason = source === 'track-interpolated' && trackPosition && !trackPosition.ok ? trackPosition.reason : null;
 
   const select = useSelection((s) => s.select);
+  const onServer = useServerMarks(cruise.id);
 
   if (!observations || !ready) {
     return <p role="status">Opening the log of {cruise.name}…</p>;
@@ -88,6 +90,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
         <ObservationList
           cruise={cruise}
           observations={observations}
+          onServer={onServer}
           onEdit={(o) => {
             select(o.id, 'list');
             void openEdit(cruise.id, o.id, () => ({ draft: observationToDraft(o, { asNext: false }), editing: { id: o.id, expectedRevision: o.revision } })).then(() => {

@@ -56,11 +56,13 @@ interface Props {
   onHistory: (o: Observation) => void;
   /** Height of the scrolling area in px. */
   height?: number;
+  /** With a ship server: the highest revision of each observation the server holds. */
+  onServer?: ReadonlyMap<string, number> | null;
 }
 
 const ROW_HEIGHT = 52;
 
-export function ObservationList({ cruise, observations, onEdit, onHistory, height = 420 }: Props) {
+export function ObservationList({ cruise, observations, onEdit, onHistory, height = 420, onServer = null }: Props) {
   const rows = useMemo(() => buildRows(cruise, observations), [cruise, observations]);
   const selectedId = useSelection((s) => s.selectedId);
   const select = useSelection((s) => s.select);
@@ -189,7 +191,10 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
                 onDoubleClick={() => onEdit(o)}
                 data-testid="observation-row"
               >
-                <span className="cell-time">{o.time.replace('T', ' ').slice(0, 16)}</span>
+                <span className="cell-time">
+                  {o.time.replace('T', ' ').slice(0, 16)}
+                  {onServer && <ServerMark reached={(onServer.get(o.id) ?? 0) >= o.revision} />}
+                </span>
                 <span>{observers.get(o.observerId) ?? '?'}</span>
                 <span className="cell-position">{showPosition(o.position)}</span>
                 <span>{o.totalConcentration ?? 'X'}</span>
@@ -207,5 +212,14 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
         </div>
       </div>
     </section>
+  );
+}
+
+/** Whether this revision reached the ship server: a word, not only a colour or a symbol. */
+function ServerMark({ reached }: { reached: boolean }) {
+  return (
+    <span className={`server-mark${reached ? ' reached' : ''}`} data-testid="server-mark" title={reached ? 'This revision is on the ship server' : 'Not on the ship server yet: waiting to send'}>
+      {reached ? ' on server' : ' waiting'}
+    </span>
   );
 }

@@ -13,6 +13,7 @@ import type {
 import type { FeatureCollection } from 'geojson';
 import { bandSymbol, hasMarks } from './bandSymbols';
 import { BANDS } from './concentrationBands';
+import { BAND_RANK } from './geojson';
 import { graticuleFilter } from './graticule';
 import { TRACK_LEVELS } from './trackLevels';
 
@@ -60,6 +61,19 @@ function byBand(value: (key: (typeof BANDS)[number]['key']) => string): Expressi
 export const FINE_LAND_ZOOM = 3;
 /** Zoom from which each observation's egg code is drawn beside it. */
 export const EGG_MIN_ZOOM = 7;
+/**
+ * Up to this zoom, observations closer than CLUSTER_RADIUS pixels are drawn as one group symbol
+ * (MapLibre's clustering, in its worker): 50,000 circles in software WebGL made every frame of a
+ * pan slow. From the next zoom on every observation has its own symbol; a click on a group zooms
+ * in to where it comes apart, and the list reaches every observation too.
+ */
+export const CLUSTER_MAX_ZOOM = 6;
+/**
+ * Pixels at the whole zoom MapLibre groups at; between whole zooms the screen distance grows up
+ * to twice that. 7 px groups only symbols that overlap (circles of 4-6 px radius), so any
+ * observation more than 14 px from every other keeps its own symbol at every zoom.
+ */
+export const CLUSTER_RADIUS = 7;
 
 export const SRC = {
   land110: 'land-110m',
@@ -71,6 +85,8 @@ export const SRC = {
   track: 'track',
   miz: 'miz',
   observations: 'observations',
+  /** The same points for the egg codes, fed only from their zoom on (see mapController). */
+  eggs: 'egg-points',
   ship: 'ship',
 } as const;
 
@@ -78,6 +94,7 @@ export const LAYER = {
   graticule: 'graticule',
   graticuleLabels: 'graticule-labels',
   observations: 'observations',
+  clusters: 'observation-groups',
   egg: 'egg-codes',
   marks: 'observation-marks',
   ship: 'ship-heading',
@@ -112,6 +129,15 @@ export function projectionSpec(kind: ProjectionKind): ProjectionSpecification {
 const NOT_POLAR: ExpressionSpecification = ['!=', ['get', 'polar'], true];
 
 const SELECTED: ExpressionSpecification = ['boolean', ['feature-state', 'selected'], false];
+
+/** A single observation, not a group (groups carry point_count). */
+const SINGLE: ExpressionSpecification = ['!', ['has', 'point_count']];
+
+/** A group's colour: the band of the highest concentration in it (BAND_RANK order), as the display draws that band. */
+function groupColour(theme: MapTheme, fallback: string): ExpressionSpecification {
+  const stops = BAND_RANK.flatMap((key, rank) => [rank, bandSymbol(theme, key).fill ?? fallback]);
+  return ['match', ['get', 'rank'], ...stops, fallback] as unknown as ExpressionSpecification;
+}
 
 export function buildStyle(input: StyleInput): StyleSpecification {
   const p = PALETTES[input.theme];
@@ -148,7 +174,14 @@ export function buildStyle(input: StyleInput): StyleSpecification {
       [SRC.graticuleLabels]: geojson(EMPTY),
       [SRC.track]: geojson(EMPTY),
       [SRC.miz]: geojson(EMPTY),
-      [SRC.observations]: geojson(EMPTY, { promoteId: 'id' }),
+      [SRC.observations]: geojson(EMPTY, {
+        promoteId: 'id',
+        cluster: true,
+        clusterMaxZoom: CLUSTER_MAX_ZOOM,
+        clusterRadius: CLUSTER_RADIUS,
+        clusterProperties: { rank: ['max', ['get', 'rank']] },
+      }),
+      [SRC.eggs]: geojson(EMPTY),
       [SRC.ship]: geojson(EMPTY),
     },
     layers: [
@@ -174,10 +207,23 @@ export function buildStyle(input: StyleInput): StyleSpecification {
       },
       ...trackLayers,
       {
+        id: LAYER.clusters,
+        type: 'circle',
+        source: SRC.observations,
+        filter: ['has', 'point_count'],
+        paint: {
+          'circle-color': groupColour(input.theme, p.ocean),
+          'circle-radius': ['step', ['get', 'point_count'], 7, 10, 9, 100, 11, 1000, 13],
+          'circle-stroke-color': p.stroke,
+          'circle-stroke-width': 2.5,
+          'circle-pitch-alignment': 'map',
+        },
+      },
+      {
         id: LAYER.observations,
         type: 'circle',
         source: SRC.observations,
-        filter: NOT_POLAR,
+        filter: ['all', SINGLE, NOT_POLAR],
         paint: {
           'circle-color': byBand((k) => bandSymbol(input.theme, k).fill ?? p.ocean),
           'circle-radius': ['interpolate', ['linear'], ['zoom'], 0, ['case', SELECTED, r0 + 4, r0], 6, ['case', SELECTED, r6 + 4, r6], 10, ['case', SELECTED, r10 + 5, r10]],
@@ -191,7 +237,7 @@ export function buildStyle(input: StyleInput): StyleSpecification {
         id: LAYER.marks,
         type: 'symbol',
         source: SRC.observations,
-        filter: NOT_POLAR,
+        filter: ['all', SINGLE, NOT_POLAR],
         layout: {
           visibility: marks ? 'visible' : 'none',
           'icon-image': ['concat', MARK_PREFIX, ['get', 'band']],
@@ -204,7 +250,7 @@ export function buildStyle(input: StyleInput): StyleSpecification {
       {
         id: LAYER.egg,
         type: 'symbol',
-        source: SRC.observations,
+        source: SRC.eggs,
         minzoom: EGG_MIN_ZOOM,
         filter: ['all', ['!=', ['get', 'egg'], ''], NOT_POLAR],
         layout: { 'icon-image': ['get', 'egg'], 'icon-anchor': 'left', 'icon-offset': [12, 0], 'icon-padding': 2 },
@@ -251,10 +297,10 @@ export function observationFilter(f: ObservationFilter): FilterSpecification | n
   return parts.length === 1 ? (parts[0] as FilterSpecification) : ['all', ...parts];
 }
 
-/** The symbol layer's filter: the polar rule and the shared filter. */
+/** The symbol layer's filter: single observations, the polar rule and the shared filter. */
 export function observationLayerFilter(f: ObservationFilter): FilterSpecification {
   const shared = observationFilter(f);
-  return shared ? ['all', NOT_POLAR, shared as ExpressionSpecification] : NOT_POLAR;
+  return shared ? ['all', SINGLE, NOT_POLAR, shared as ExpressionSpecification] : ['all', SINGLE, NOT_POLAR];
 }
 
 /** The egg layer's filter: its own condition, the polar rule and the shared one. */

@@ -1,7 +1,7 @@
 // The review's tables in jsdom: the figures shown are the domain's (src/domain/stats), formatted.
 // Expected values for the small log are hand-computed (see test/domain/stats.test.ts for the same log).
 import { describe, expect, it } from 'vitest';
-import { render, screen, within } from '@testing-library/react';
+import { render, screen, waitFor, within } from '@testing-library/react';
 import type { Cruise, IceCategory, Observation } from '../../../src/domain/model';
 import { collectFindings, reviewCruise } from '../../../src/domain/stats';
 import { makeDemoCruise } from '../../../src/domain/demo';
@@ -108,13 +108,15 @@ describe('the whole review of the demo cruise', () => {
     const demo = makeDemoCruise();
     const full = reviewCruise({ cruise: demo.cruise, observations: demo.observations, track: demo.track });
     render(<CruiseReview cruise={demo.cruise} observations={demo.observations} track={demo.track} />);
-    expect(screen.getByTestId('value-observations').textContent).toBe(String(full.summary.observations));
+    // The figures come from the review engine (in place here: jsdom has no Worker), a moment later.
+    expect((await screen.findByTestId('value-observations')).textContent).toBe(String(full.summary.observations));
+    await waitFor(() => expect(screen.getByTestId('review-updating').textContent).toBe(''));
     expect(screen.getByTestId('value-sailed').textContent).toBe(`${full.summary.sailedNm.toFixed(1)} nm`);
     expect(screen.getAllByRole('figure')).toHaveLength(4);
     const observer = demo.cruise.observers[1]!;
     await user.selectOptions(screen.getByLabelText('Observer', { selector: 'select[id$="-observer"]' }), observer.id);
     const one = reviewCruise({ cruise: demo.cruise, observations: demo.observations, track: demo.track, include: (o) => o.observerId === observer.id });
-    expect(screen.getByTestId('value-observations').textContent).toBe(String(one.summary.observations));
+    await waitFor(() => expect(screen.getByTestId('value-observations').textContent).toBe(String(one.summary.observations)));
     expect(screen.getByRole('status').textContent).toContain(observer.name);
   });
 });
