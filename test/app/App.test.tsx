@@ -16,7 +16,8 @@ describe('App shell', () => {
     render(<App />);
     await user.click(screen.getByRole('button', { name: 'Settings' }));
     expect(screen.getByRole('button', { name: 'Settings' })).toHaveAttribute('aria-current', 'page');
-    expect(screen.getByRole('heading', { level: 2, name: 'Settings' })).toBeInTheDocument();
+    // Screens other than the log are loaded lazily (issue 15): wait for the chunk.
+    expect(await screen.findByRole('heading', { level: 2, name: 'Settings' }, { timeout: 10_000 })).toBeInTheDocument();
   });
 
   it('applies the chosen display theme to the document', async () => {
