@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect } from 'react';
+import { Suspense, useEffect, useState } from 'react';
 import { SCREENS, useNavigation, type Screen } from '../state/navigation';
 import { effectiveTheme, useThemeStore, type ThemeMode } from '../state/theme';
 import { LogScreen } from '../features/log/LogScreen';
@@ -8,14 +8,17 @@ import { LogBackground } from '../features/log/LogBackground';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
 import { SyncBadge } from '../features/sync/SyncBadge';
 import { SyncRunner } from '../features/sync/SyncRunner';
+import { retriableLazy, ScreenBoundary, type RetriableLazy } from './ScreenBoundary';
 
 // The watch log is in the first bundle: it must be interactive at once. The other screens (the
 // map with MapLibre, the review with its charts, the exchange with its validators and zip code)
 // load when first opened; the service worker precaches every chunk, so this works offline too.
-const MapScreen = lazy(() => import('../features/map/MapScreen').then((m) => ({ default: m.MapScreen })));
-const ReviewScreen = lazy(() => import('../features/review/ReviewScreen').then((m) => ({ default: m.ReviewScreen })));
-const ExchangeScreen = lazy(() => import('../features/exchange/ExchangeScreen').then((m) => ({ default: m.ExchangeScreen })));
-const SettingsScreen = lazy(() => import('../features/settings/SettingsScreen').then((m) => ({ default: m.SettingsScreen })));
+const LAZY_SCREENS: Record<Exclude<Screen, 'log'>, RetriableLazy> = {
+  map: retriableLazy(() => import('../features/map/MapScreen').then((m) => ({ default: m.MapScreen }))),
+  review: retriableLazy(() => import('../features/review/ReviewScreen').then((m) => ({ default: m.ReviewScreen }))),
+  exchange: retriableLazy(() => import('../features/exchange/ExchangeScreen').then((m) => ({ default: m.ExchangeScreen }))),
+  settings: retriableLazy(() => import('../features/settings/SettingsScreen').then((m) => ({ default: m.SettingsScreen }))),
+};
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -33,18 +36,9 @@ const THEME_LABELS: Record<ThemeMode, string> = {
 };
 
 function ScreenBody({ screen }: { screen: Screen }) {
-  switch (screen) {
-    case 'log':
-      return <LogScreen />;
-    case 'map':
-      return <MapScreen />;
-    case 'review':
-      return <ReviewScreen />;
-    case 'exchange':
-      return <ExchangeScreen />;
-    case 'settings':
-      return <SettingsScreen />;
-  }
+  if (screen === 'log') return <LogScreen />;
+  const { Screen: Body } = LAZY_SCREENS[screen];
+  return <Body />;
 }
 
 export function App() {
@@ -54,6 +48,8 @@ export function App() {
   const autoTheme = useThemeStore((s) => s.autoTheme);
   const setMode = useThemeStore((s) => s.setMode);
   const theme = effectiveTheme({ mode, autoTheme });
+  // Bumped by "Try again" so the boundary's children mount afresh with the new lazy component.
+  const [attempt, setAttempt] = useState(0);
 
   useEffect(() => {
     document.documentElement.dataset.theme = theme;
@@ -94,9 +90,18 @@ export function App() {
       <LogBackground />
       <DatabaseStatus />
       <main className="app-main" id="main">
-        <Suspense fallback={<p role="status">Opening {SCREEN_LABELS[screen]}…</p>}>
-          <ScreenBody screen={screen} />
-        </Suspense>
+        <ScreenBoundary
+          key={`${screen}-${attempt}`}
+          screenLabel={SCREEN_LABELS[screen]}
+          onRetry={() => {
+            if (screen !== 'log') LAZY_SCREENS[screen].retry();
+            setAttempt((n) => n + 1);
+          }}
+        >
+          <Suspense fallback={<p role="status">Opening {SCREEN_LABELS[screen]}…</p>}>
+            <ScreenBody screen={screen} />
+          </Suspense>
+        </ScreenBoundary>
       </main>
     </div>
   );

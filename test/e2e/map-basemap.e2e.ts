@@ -3,6 +3,7 @@
 // the North Pole on the globe, Antarctica filled at the South Pole. Geography checked here
 // (which places are land or sea) is common geography: Natural Earth's coastlines.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { waitForServiceWorkerControl } from './harness/pwa';
 import type { Page } from 'playwright-core';
 import { openApp, type AppSession } from './harness/browser';
 import { colourDistance, hexRgb, openMapScreen, pixels, screenPoint, waitForIdle, type Rgb } from './map/mapPage';
@@ -36,12 +37,21 @@ function row(lat: number, from: number, to: number, step: number): LonLat[] {
 describe('basemap offline', () => {
   let app: AppSession;
   const requests: string[] = [];
+  // The app's own lazy chunks answered by the service worker's precache are not network use.
+  const fromPrecache: string[] = [];
   beforeAll(async () => {
     app = await openApp({ path: '?map-debug' });
     await app.page.getByRole('heading', { name: 'Floe Ledger' }).waitFor();
+    // The map's code is a lazy chunk: offline it comes from the service worker's precache, which
+    // is complete once the worker controls the page (as after any first visit with a network).
+    await waitForServiceWorkerControl(app.page, 180_000);
     await app.browser.context.setOffline(true);
     app.page.on('request', (r) => {
-      if (!/^(blob|data):/.test(r.url())) requests.push(r.url());
+      if (/^(blob|data):/.test(r.url())) return;
+      void r.response().then((res) => {
+        if (res?.fromServiceWorker()) fromPrecache.push(r.url());
+        else requests.push(r.url());
+      }, () => requests.push(r.url()));
     });
     await openMapScreen(app.page);
   }, 240_000);
@@ -58,6 +68,7 @@ describe('basemap offline', () => {
     // Only the fine land's asset may be asked for (without an offline cache it fails, and the
     // coarse land, bundled in the code, serves at every zoom).
     expect(requests.filter((u) => !/land-50m/.test(u))).toEqual([]);
+    expect(fromPrecache.some((u) => /\/assets\/MapScreen-[^/]+\.js$/.test(u)), 'the map screen came from the precache').toBe(true);
     expect(['loaded', 'failed']).toContain(await page.evaluate(() => window.__floeMapDebug?.fineLand()));
   }, 240_000);
 
