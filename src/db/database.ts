@@ -1,7 +1,7 @@
 // The typed Dexie database. Only this folder (src/db) touches IndexedDB.
 import { Dexie, type EntityTable, type Table } from 'dexie';
 import type { Cruise, Observation, TrackPoint } from '../domain/model';
-import type { ConflictRecord, DraftRecord, MetaRow, ObservationRevision, PhotoRecord, SettingRow } from './rows';
+import type { ConflictRecord, DraftRecord, IceChartRow, IceGridRow, MetaRow, ObservationRevision, PhotoRecord, SettingRow } from './rows';
 import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
 
 export const DEFAULT_DB_NAME = 'floe-ledger';
@@ -24,6 +24,8 @@ export class FloeDatabase extends Dexie {
   settings!: Table<SettingRow, string>;
   meta!: Table<MetaRow, string>;
   conflicts!: EntityTable<ConflictRecord, 'id'>;
+  iceCharts!: EntityTable<IceChartRow, 'id'>;
+  iceGrids!: EntityTable<IceGridRow, 'id'>;
 
   /** The highest schema version this code declares. */
   readonly codeVersion: number;

@@ -48,6 +48,25 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       conflicts: 'id, observationId, cruiseId',
     },
   },
+  // Versions 3 and 4 belong to other branches (issues 11 and 15); Dexie allows the gap.
+  {
+    version: 5,
+    note: 'ice information: imported ice charts (SIGRID-3) and satellite concentration grids, each with its time',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: '[cruiseId+time]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+      // Charts and grids are area products, not tied to one cruise; listed by their valid time.
+      iceCharts: 'id, chartTime',
+      iceGrids: 'id, gridTime',
+    },
+  },
 ];
 
 export const LATEST_SCHEMA_VERSION = SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.version ?? 0;

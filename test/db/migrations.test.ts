@@ -34,8 +34,11 @@ function primaryKeyOf(table: string, row: unknown): unknown {
 }
 
 describe('schema versions', () => {
-  it('are numbered 1, 2, 3 ... with a note each, and every shipped version has a fixture', () => {
-    expect(SCHEMA_VERSIONS.map((v) => v.version)).toEqual(SCHEMA_VERSIONS.map((_, i) => i + 1));
+  it('are numbered in increasing order with a note each, and every shipped version has a fixture', () => {
+    // Parallel branches hold numbers of their own (docs/dev/db.md), so a branch may show a gap.
+    const numbers = SCHEMA_VERSIONS.map((v) => v.version);
+    expect(numbers[0]).toBe(1);
+    for (let i = 1; i < numbers.length; i++) expect(numbers[i]).toBeGreaterThan(numbers[i - 1] as number);
     for (const v of SCHEMA_VERSIONS) expect(v.note.length, `version ${v.version} note`).toBeGreaterThan(0);
     expect(fixtureFiles().map((f) => f.version)).toEqual(SCHEMA_VERSIONS.map((v) => v.version));
   });
