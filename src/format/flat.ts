@@ -3,7 +3,9 @@
 // first, as the egg code orders them), WMO terms with SIGRID-3 codes beside them, UTC times,
 // decimal degrees. Names carry their units so a spreadsheet or R user need not look them up.
 import type { Cruise, IceCategory, Observation } from '../domain/model';
+import type { Collocation } from '../domain/iceinfo/collocate';
 import { concentrationCode, concentrationTermLabel, floeSizeCode, stageCode, stageTermLabel } from './codes';
+import { ICEINFO_COLUMNS, iceinfoCells } from './iceinfoColumns';
 
 export type Cell = string | number | boolean | null;
 
@@ -90,10 +92,17 @@ function categoryCells(c: IceCategory | undefined): Cell[] {
 
 export interface FlatContext {
   initials: Map<string, string>;
+  /** Chart and grid values per observation id; when given, ICEINFO_COLUMNS follow FLAT_COLUMNS. */
+  collocation?: ReadonlyMap<string, Collocation>;
 }
 
-export function flatContext(cruise: Cruise): FlatContext {
-  return { initials: new Map(cruise.observers.map((o) => [o.id, o.initials])) };
+export function flatContext(cruise: Cruise, collocation?: ReadonlyMap<string, Collocation>): FlatContext {
+  return { initials: new Map(cruise.observers.map((o) => [o.id, o.initials])), ...(collocation ? { collocation } : {}) };
+}
+
+/** The columns of a flat record: FLAT_COLUMNS, then the derived ice information block if any. */
+export function flatColumns(ctx: FlatContext): readonly string[] {
+  return ctx.collocation ? [...FLAT_COLUMNS, ...ICEINFO_COLUMNS] : FLAT_COLUMNS;
 }
 
 /** The cells of one observation, in FLAT_COLUMNS order. */
@@ -141,20 +150,24 @@ export function flatRow(o: Observation, ctx: FlatContext): Cell[] {
     o.savedBy,
     o.deviceId,
     o.deleted,
+    ...(ctx.collocation ? iceinfoCells(ctx.collocation.get(o.id)) : []),
   ];
 }
 
 /** The same cells as an object keyed by column name. */
 export function flatRecord(o: Observation, ctx: FlatContext): Record<string, Cell> {
   const row = flatRow(o, ctx);
+  const cols = flatColumns(ctx);
   const out: Record<string, Cell> = {};
-  for (let i = 0; i < FLAT_COLUMNS.length; i++) out[FLAT_COLUMNS[i] as string] = row[i] as Cell;
+  for (let i = 0; i < cols.length; i++) out[cols[i] as string] = row[i] as Cell;
   return out;
 }
 
 export interface FlatOptions {
   /** Include soft-deleted observations (column `deleted` says which); default false. */
   includeDeleted?: boolean;
+  /** Chart and grid values per observation id (src/domain/iceinfo), appended as ICEINFO_COLUMNS. */
+  collocation?: ReadonlyMap<string, Collocation>;
 }
 
 export function exportedObservations(observations: readonly Observation[], opts: FlatOptions = {}): Observation[] {

@@ -6,6 +6,7 @@ import { writeNdjson } from '../../format/ndjson.ts';
 import { writeArchive } from '../../format/archive.ts';
 import { parseOptions, stringOption } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
+import { collocateLoaded, ICEINFO_OPTIONS, ICEINFO_USAGE, loadIceInfo } from '../iceInfoFiles.ts';
 import { loadLog, printProblems, writeOut } from '../logFiles.ts';
 
 const TARGETS = ['geojson', 'csv', 'ndjson', 'log', 'zip'] as const;
@@ -18,14 +19,18 @@ const usage = `Usage: npm run cli -- convert FILE --to ${TARGETS.join('|')} -o O
   log       the log in the current format version (reads older versions by migration)
   zip       the log and its photos as an archive
 
-  --include-deleted   keep deleted observations in geojson, csv and ndjson (column "deleted")`;
+  --include-deleted   keep deleted observations in geojson, csv and ndjson (column "deleted")
+
+With --chart or --grid, geojson, csv and ndjson get the chart and grid values at each
+observation as a block of columns at the end (derived values; docs/format.md):
+${ICEINFO_USAGE}`;
 
 export const convertCommand: Command = {
   name: 'convert',
   summary: 'convert a log file to GeoJSON, CSV, NDJSON, the current log version or a zip',
   usage,
-  run(args: string[], io: CliIO): number {
-    const { values, positionals } = parseOptions(args, { to: { type: 'string' }, out: { type: 'string', short: 'o' }, 'include-deleted': { type: 'boolean' } }, true);
+  async run(args: string[], io: CliIO): Promise<number> {
+    const { values, positionals } = parseOptions(args, { to: { type: 'string' }, out: { type: 'string', short: 'o' }, 'include-deleted': { type: 'boolean' }, ...ICEINFO_OPTIONS }, true);
     if (positionals.length !== 1) throw new UsageError('give exactly one FILE');
     const to = stringOption(values, 'to', true);
     const out = stringOption(values, 'out', true);
@@ -35,8 +40,14 @@ export const convertCommand: Command = {
       printProblems(io, log);
       return EXIT_FAILURE;
     }
-    const opts = { includeDeleted: values['include-deleted'] === true };
     const b = log.bundle;
+    let collocation;
+    if (values.chart !== undefined || values.grid !== undefined) {
+      const info = await loadIceInfo(values, io);
+      if (!info) return EXIT_FAILURE;
+      collocation = collocateLoaded(b.observations, info);
+    }
+    const opts = { includeDeleted: values['include-deleted'] === true, ...(collocation ? { collocation } : {}) };
     if (to === 'geojson') writeOut(out, writeGeoJson(b, opts));
     else if (to === 'csv') writeOut(out, writeCsv(b, opts));
     else if (to === 'ndjson') writeOut(out, writeNdjson(b, opts));

@@ -6,3 +6,4 @@ export * from './polygon.ts';
 export * from './gridSample.ts';
 export * from './collocate.ts';
 export * from './agreement.ts';
+export * from './report.ts';
