@@ -2,7 +2,7 @@
 // files are read with the app's readers (src/iceinfo), NetCDF-4 through h5wasm's Node build.
 import { readFileSync } from 'node:fs';
 import { basename } from 'node:path';
-import { collocate, DEFAULT_COLLOCATION, type ChartLocator, type Collocation, type CollocationOptions, type GridLocator, type GridMethod, type ProductNote } from '../domain/iceinfo/index.ts';
+import { collocate, DEFAULT_COLLOCATION, type ChartLocator, type Collocation, type CollocationOptions, type GridLocator, type GridMethod, type ProductNote } from '../domain/collocation/index.ts';
 import type { Observation } from '../domain/model.ts';
 import { GEOTIFF_PRESET_NAMES, type GeoTiffPreset } from '../iceinfo/gridCells.ts';
 import { IceInfoError } from '../iceinfo/problems.ts';

@@ -36,4 +36,4 @@ export { requestPersistence, storageStatus, type StorageStatus } from './persist
 export { isIsoUtc } from './validate';
 export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
 export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';
-export { saveIceChart, saveIceGrid, listIceCharts, listIceGrids, listIceInfo, setIceInfoVisible, deleteIceInfo } from './iceInfo';
+export { saveIceChart, saveIceGrid, listIceCharts, listIceGrids, listIceInfo, setIceInfoVisible, deleteIceInfo } from './iceProducts';

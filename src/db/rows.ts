@@ -1,6 +1,6 @@
 // The shapes stored in each table, beside the model types they hold. Model records (Cruise,
 // Observation, TrackPoint) are stored exactly as src/domain/model.ts defines them.
-import type { ConcentrationGrid, IceChart } from '../domain/iceinfo/chartModel';
+import type { ConcentrationGrid, IceChart } from '../domain/collocation/chartModel';
 import type { Cruise, IsoUtc, Observation } from '../domain/model';
 
 /** An earlier version of an observation, kept when an edit, delete or restore replaces it. */

@@ -3,7 +3,7 @@
 // first, as the egg code orders them), WMO terms with SIGRID-3 codes beside them, UTC times,
 // decimal degrees. Names carry their units so a spreadsheet or R user need not look them up.
 import type { Cruise, IceCategory, Observation } from '../domain/model';
-import type { Collocation } from '../domain/iceinfo/collocate';
+import type { Collocation } from '../domain/collocation/collocate';
 import { concentrationCode, concentrationTermLabel, floeSizeCode, stageCode, stageTermLabel } from './codes';
 import { ICEINFO_COLUMNS, iceinfoCells } from './iceinfoColumns';
 
@@ -166,7 +166,7 @@ export function flatRecord(o: Observation, ctx: FlatContext): Record<string, Cel
 export interface FlatOptions {
   /** Include soft-deleted observations (column `deleted` says which); default false. */
   includeDeleted?: boolean;
-  /** Chart and grid values per observation id (src/domain/iceinfo), appended as ICEINFO_COLUMNS. */
+  /** Chart and grid values per observation id (src/domain/collocation), appended as ICEINFO_COLUMNS. */
   collocation?: ReadonlyMap<string, Collocation>;
 }
 

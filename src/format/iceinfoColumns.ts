@@ -2,7 +2,7 @@
 // when an export is made with ice charts or concentration grids: values derived from those
 // products at the observation's place and time, never part of the observation itself (the JSON
 // log does not carry them). docs/format.md documents them.
-import type { Collocation } from '../domain/iceinfo/collocate';
+import type { Collocation } from '../domain/collocation/collocate';
 import { STAGES } from '../domain/nomenclature';
 import type { Cell } from './flat';
 

@@ -4,9 +4,9 @@
 import { unzipSync } from 'fflate';
 import * as shapefile from 'shapefile';
 import type { Feature, FeatureCollection, Geometry } from 'geojson';
-import { CHART_ATTRIBUTE_NAMES, type ChartAttributes, type ChartPolygon, type IceChart } from '../domain/iceinfo/chartModel.ts';
-import { ringBbox, unwrapLongitudes } from '../domain/iceinfo/polygon.ts';
-import { isConcentrationCode, isStageCode, normaliseCode, readPolyType } from '../domain/iceinfo/sigrid3.ts';
+import { CHART_ATTRIBUTE_NAMES, type ChartAttributes, type ChartPolygon, type IceChart } from '../domain/collocation/chartModel.ts';
+import { ringBbox, unwrapLongitudes } from '../domain/collocation/polygon.ts';
+import { isConcentrationCode, isStageCode, normaliseCode, readPolyType } from '../domain/collocation/sigrid3.ts';
 import { ICEINFO_LIMITS } from './limits.ts';
 import { refuse } from './problems.ts';
 import { GEOGRAPHIC, KNOWN_GRID_CRS, wktToProj4 } from './projections.ts';

@@ -1,7 +1,7 @@
 // Turning a product's raw cell values into our cell bytes (percent 0..100 or a GRID_FLAG), with
 // the product's flags honoured: explicit flag values first (CF Conventions section 3.5,
 // flag_values / flag_meanings), then the fill value, then the scale to percent.
-import { GRID_FLAG, type GridFlagName } from '../domain/iceinfo/chartModel.ts';
+import { GRID_FLAG, type GridFlagName } from '../domain/collocation/chartModel.ts';
 
 export interface CellEncoding {
   /** Raw values that are flags, and what they mean. */

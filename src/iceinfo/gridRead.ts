@@ -5,7 +5,7 @@
 // refused before its cells are decoded.
 import { fromArrayBuffer } from 'geotiff';
 import { NetCDFReader } from 'netcdfjs';
-import type { ConcentrationGrid } from '../domain/iceinfo/chartModel.ts';
+import type { ConcentrationGrid } from '../domain/collocation/chartModel.ts';
 import { encodeCells, flagFromMeaning, presetEncoding, type CellEncoding, type EncodedCells, type GeoTiffPreset } from './gridCells.ts';
 import { ICEINFO_LIMITS } from './limits.ts';
 import { refuse } from './problems.ts';

@@ -4,7 +4,7 @@
 // proj4 definition for the families we support: polar stereographic, Lambert conformal conic,
 // Lambert azimuthal equal-area and geographic.
 import proj4 from 'proj4';
-import type { ToPlane } from '../domain/iceinfo/collocate.ts';
+import type { ToPlane } from '../domain/collocation/collocate.ts';
 import { refuse } from './problems.ts';
 
 /**

@@ -9,7 +9,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import type { CliIO } from '../../src/cli/command.ts';
 import { runCli } from '../../src/cli/main.ts';
 import { makeDemoCruise } from '../../src/domain/demo.ts';
-import { AGREEMENT_CAUTIONS } from '../../src/domain/iceinfo/index.ts';
+import { AGREEMENT_CAUTIONS } from '../../src/domain/collocation/index.ts';
 import { exportLogJson } from '../../src/format/encode.ts';
 import { FLAT_COLUMNS } from '../../src/format/flat.ts';
 import { ICEINFO_COLUMNS } from '../../src/format/iceinfoColumns.ts';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { getDb, InvalidRecordError, listIceCharts, listIceGrids, listIceInfo, saveIceChart, saveIceGrid, setIceInfoVisible, deleteIceInfo, RecordNotFoundError } from '../../src/db';
-import type { ConcentrationGrid, IceChart } from '../../src/domain/iceinfo';
+import type { ConcentrationGrid, IceChart } from '../../src/domain/collocation';
 import { freshDatabasePerTest } from './helpers';
 
 freshDatabasePerTest();

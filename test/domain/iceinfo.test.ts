@@ -17,7 +17,7 @@ import {
   type ChartAttributes,
   type ChartLocator,
   type GridLocator,
-} from '../../src/domain/iceinfo';
+} from '../../src/domain/collocation';
 
 const attrs = (a: Partial<ChartAttributes>): ChartAttributes => ({ POLY_TYPE: 'I', CT: null, CA: null, SA: null, FA: null, CB: null, SB: null, FB: null, CC: null, SC: null, FC: null, CN: null, CD: null, ...a });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { locateInChart, chartMatch } from '../../src/domain/iceinfo';
+import { locateInChart, chartMatch } from '../../src/domain/collocation';
 import { readChartFile, type ChartMeta } from '../../src/iceinfo/chartRead';
 import { planeOf } from '../../src/iceinfo/projections';
 import { chartGeoJson, chartGeoJson3413, patchZip, shapefileZip, WKT_3413 } from './chartFiles';

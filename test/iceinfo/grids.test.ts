@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { collocate, GRID_FLAG, sampleGrid } from '../../src/domain/iceinfo';
+import { collocate, GRID_FLAG, sampleGrid } from '../../src/domain/collocation';
 import { nodeHdf5 } from '../../src/cli/hdf5Node';
 import { readGridFile, type GridMeta } from '../../src/iceinfo/gridRead';
 import { ICEINFO_LIMITS } from '../../src/iceinfo/limits';

@@ -1,6 +1,6 @@
 // `summary FILE [--json] [--chart F] [--grid G]`: the cruise statistics of a log file, and with
 // ice charts or grids, how well the observations agree with them.
-import { iceInfoReport, type IceInfoReport } from '../../domain/iceinfo/index.ts';
+import { iceInfoReport, type IceInfoReport } from '../../domain/collocation/index.ts';
 import { summarise, summaryLines } from '../../format/summary.ts';
 import { parseOptions } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';

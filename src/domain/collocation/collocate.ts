@@ -3,7 +3,7 @@
 // limit). Projections are passed in as functions, so this stays pure: src/iceinfo builds them
 // with proj4 from the chart's or grid's definition.
 import type { IsoUtc, Observation, StageKey } from '../model.ts';
-import type { ConcentrationGrid, IceChart } from './chartModel.ts';
+import type { ChartPolygon, ConcentrationGrid, IceChart } from './chartModel.ts';
 import { sampleGrid, type GridSample } from './gridSample.ts';
 import { pointInPolygon } from './polygon.ts';
 import { readConcentrationCode, readPolyType, readStageCode, type ChartConcentration, type PolyType } from './sigrid3.ts';
@@ -74,7 +74,7 @@ function nearestInTime<T>(sorted: readonly { t: number; item: T }[], t: number, 
     else hi = mid;
   }
   let best: { item: T; hours: number } | null = null;
-  for (const i of [lo - 1, lo]) {
+  for (let i = lo - 1; i <= lo; i++) {
     const c = sorted[i];
     if (!c) continue;
     const hours = (t - c.t) / 3_600_000;
@@ -95,14 +95,34 @@ export function locateInChart(loc: ChartLocator, lon: number, lat: number): numb
   return null;
 }
 
+interface DecodedPolygon {
+  polyType: PolyType | null;
+  concentration: ChartConcentration | null;
+  stage: StageKey | null;
+}
+
+// Codes are decoded once per polygon, not once per observation.
+const decoded = new WeakMap<object, DecodedPolygon>();
+
+function decode(a: ChartPolygon['attributes']): DecodedPolygon {
+  const hit = decoded.get(a);
+  if (hit) return hit;
+  const polyType = readPolyType(a.POLY_TYPE);
+  let concentration = readConcentrationCode(a.CT);
+  // An open-water polygon without CT is ice free by its type.
+  if (polyType === 'W' && concentration === null) concentration = { lo: 0, hi: 0, tenths: 0 };
+  if (polyType === 'L' || polyType === 'N') concentration = null;
+  const d = { polyType, concentration, stage: readStageCode(a.SA) };
+  decoded.set(a, d);
+  return d;
+}
+
 export function chartMatch(loc: ChartLocator, lon: number, lat: number, hoursApart: number): ChartMatch {
   const idx = locateInChart(loc, lon, lat);
   const a = idx === null ? null : (loc.chart.polygons[idx]?.attributes ?? null);
-  const polyType = a ? readPolyType(a.POLY_TYPE) : null;
-  let concentration = a ? readConcentrationCode(a.CT) : null;
-  // An open-water polygon without CT is ice free by its type.
-  if (a && polyType === 'W' && concentration === null) concentration = { lo: 0, hi: 0, tenths: 0 };
-  if (polyType === 'L' || polyType === 'N') concentration = null;
+  const d = a ? decode(a) : null;
+  const polyType = d?.polyType ?? null;
+  const concentration = d?.concentration ?? null;
   return {
     chartId: loc.chart.id,
     sourceName: loc.chart.sourceName,
@@ -112,7 +132,7 @@ export function chartMatch(loc: ChartLocator, lon: number, lat: number, hoursApa
     polyType,
     concentration,
     ctCode: a?.CT ?? null,
-    stage: a ? readStageCode(a.SA) : null,
+    stage: d?.stage ?? null,
     saCode: a?.SA ?? null,
   };
 }

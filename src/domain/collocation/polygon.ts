@@ -70,7 +70,8 @@ export function ringBbox(ring: readonly number[]): [number, number, number, numb
 export function pointInPolygon(rings: readonly (readonly number[])[], bbox: readonly number[], x: number, y: number, geographic: boolean): boolean {
   const [minX, minY, maxX, maxY] = bbox as [number, number, number, number];
   if (y < minY || y > maxY) return false;
-  const xs = geographic ? [x, x - 360, x + 360] : [x];
-  for (const px of xs) if (px >= minX && px <= maxX && pointInRings(rings, px, y)) return true;
+  if (x >= minX && x <= maxX && pointInRings(rings, x, y)) return true;
+  if (!geographic) return false;
+  for (const px of [x - 360, x + 360]) if (px >= minX && px <= maxX && pointInRings(rings, px, y)) return true;
   return false;
 }

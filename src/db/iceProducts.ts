@@ -1,7 +1,7 @@
 // Ice charts and concentration grids: the store side. The files are read and checked by
 // src/iceinfo before anything reaches here; these functions check the shape once more and write
 // in one transaction, so a refused or failed import leaves the tables as they were.
-import type { ConcentrationGrid, IceChart } from '../domain/iceinfo/chartModel';
+import type { ConcentrationGrid, IceChart } from '../domain/collocation/chartModel';
 import { getDb, writableDb } from './connection';
 import { InvalidRecordError, mapWriteError, RecordNotFoundError } from './errors';
 import type { IceChartRow, IceGridRow, IceInfoSummary } from './rows';
