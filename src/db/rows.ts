@@ -72,6 +72,8 @@ export interface SettingValues {
   /** When the last automatic backup was written, and the last export downloaded. */
   lastBackupAt: IsoUtc | null;
   lastExportAt: IsoUtc | null;
+  /** Collocation with ice charts and grids: time limits (hours) and the grid sampling method. */
+  iceInfoCollocation: { chartMaxHours: number; gridMaxHours: number; gridMethod: 'nearest' | 'bilinear' };
 }
 export type SettingKey = keyof SettingValues;
 

@@ -5,6 +5,7 @@ import { useId, useMemo, useState } from 'react';
 import type { Cruise, Observation, TrackPoint } from '../../domain/model';
 import { POLARIS_CAUTIONS, VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
 import { collectFindings, reviewCruise } from '../../domain/stats';
+import { AgreementPanel } from './AgreementPanel';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
@@ -75,6 +76,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
       <BandTable table={review.bands} />
       <HandoverTable table={review.handover} observers={cruise.observers} highlight={observerId || null} />
       <FindingsPanel findings={findings} cruise={cruise} observations={byId} />
+      <AgreementPanel cruise={cruise} observations={observations} />
       <section aria-labelledby="review-cautions-title" className="review-section review-cautions">
         <h3 id="review-cautions-title">Cautions</h3>
         <ul>
