@@ -10,7 +10,8 @@ import { gridColour, type IceInfoPalette } from './iceInfoColours';
 
 /** Longest edge drawn straight, in the chart plane (metres). */
 const DENSIFY_M = 20_000;
-const MERCATOR_MAX_LAT = 85.0511;
+// A little inside Web Mercator's 85.0511: MapLibre refuses an image whose corner rounds past the tile edge.
+const MERCATOR_MAX_LAT = 85;
 
 function ringToLonLat(ring: readonly number[], chart: Pick<IceChart, 'crs' | 'geographic'>): number[][] {
   if (chart.geographic) {
