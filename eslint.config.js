@@ -34,33 +34,40 @@ export default tseslint.config(
     files: ['src/domain/**'],
     languageOptions: { globals: { ...globals.es2022 } },
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'iceinfo') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync', 'iceinfo') }],
       'no-restricted-globals': ['error', 'window', 'document', 'navigator', 'localStorage', 'indexedDB'],
     },
   },
   {
     files: ['src/format/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli', 'iceinfo') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli', 'sync', 'iceinfo') }],
     },
   },
   {
     files: ['src/db/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli', 'iceinfo') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli', 'sync', 'iceinfo') }],
     },
   },
   {
     // Ice chart and grid readers: over domain/ only (DESIGN.md); the app and the CLI call them.
     files: ['src/iceinfo/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync') }],
     },
   },
   {
     files: ['src/gps/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'cli') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'cli', 'sync') }],
+    },
+  },
+  {
+    // Replication with a CouchDB server: over db/ and format/, below the screens.
+    files: ['src/sync/**'],
+    rules: {
+      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli') }],
     },
   },
   {
@@ -74,7 +81,7 @@ export default tseslint.config(
     rules: { 'no-restricted-imports': 'off' },
   },
   {
-    files: ['test/**', 'scripts/**'],
+    files: ['test/**', 'scripts/**', 'server/**'],
     rules: { 'no-restricted-imports': 'off' },
   },
 );

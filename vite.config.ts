@@ -3,12 +3,16 @@ import react from '@vitejs/plugin-react';
 import { existsSync, realpathSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { pwa, stripCspInDev } from './src/app/pwa.config.ts';
+import { shipServerCsp, shipServerOrigins } from './src/app/csp.config.ts';
+
+// The ship servers the built app may connect to (src/app/csp.config.ts); none unless given.
+const shipServers = shipServerOrigins(process.env.FLOE_SHIP_SERVER);
 
 // One config for the app build and the unit/component/database tests.
 // Browser (e2e) tests and benchmarks have their own configs because they need the built app
 // and must run one file at a time on a 2-core machine.
 export default defineConfig({
-  plugins: [react(), pwa(), stripCspInDev()],
+  plugins: [react(), pwa(), stripCspInDev(), shipServerCsp(shipServers)],
   // A build marker the app shows and the update test checks; CI or a release may set it.
   define: { __FLOE_BUILD__: JSON.stringify(process.env.FLOE_BUILD_ID ?? new Date().toISOString()) },
   // Keep the cache in the project, not in node_modules, so several checkouts that share one
@@ -46,7 +50,7 @@ export default defineConfig({
         test: {
           name: 'db',
           environment: 'node',
-          include: ['test/db/**/*.test.ts'],
+          include: ['test/db/**/*.test.ts', 'test/sync/**/*.test.ts'],
           setupFiles: ['test/setup/db.ts'],
         },
       },

@@ -1,15 +1,21 @@
-import { useEffect } from 'react';
+import { lazy, Suspense, useEffect } from 'react';
 import { SCREENS, useNavigation, type Screen } from '../state/navigation';
 import { effectiveTheme, useThemeStore, type ThemeMode } from '../state/theme';
 import { LogScreen } from '../features/log/LogScreen';
-import { MapScreen } from '../features/map/MapScreen';
-import { ReviewScreen } from '../features/review/ReviewScreen';
-import { ExchangeScreen } from '../features/exchange/ExchangeScreen';
-import { SettingsScreen } from '../features/settings/SettingsScreen';
 import { NavigationNotice } from './NavigationNotice';
 import { UpdateBanner } from './UpdateBanner';
 import { LogBackground } from '../features/log/LogBackground';
 import { DatabaseStatus } from '../features/settings/DatabaseStatus';
+import { SyncBadge } from '../features/sync/SyncBadge';
+import { SyncRunner } from '../features/sync/SyncRunner';
+
+// The watch log is in the first bundle: it must be interactive at once. The other screens (the
+// map with MapLibre, the review with its charts, the exchange with its validators and zip code)
+// load when first opened; the service worker precaches every chunk, so this works offline too.
+const MapScreen = lazy(() => import('../features/map/MapScreen').then((m) => ({ default: m.MapScreen })));
+const ReviewScreen = lazy(() => import('../features/review/ReviewScreen').then((m) => ({ default: m.ReviewScreen })));
+const ExchangeScreen = lazy(() => import('../features/exchange/ExchangeScreen').then((m) => ({ default: m.ExchangeScreen })));
+const SettingsScreen = lazy(() => import('../features/settings/SettingsScreen').then((m) => ({ default: m.SettingsScreen })));
 
 const SCREEN_LABELS: Record<Screen, string> = {
   log: 'Watch log',
@@ -81,12 +87,16 @@ export function App() {
           </select>
         </label>
       </header>
+      <SyncBadge />
+      <SyncRunner />
       <NavigationNotice />
       <UpdateBanner />
       <LogBackground />
       <DatabaseStatus />
       <main className="app-main" id="main">
-        <ScreenBody screen={screen} />
+        <Suspense fallback={<p role="status">Opening {SCREEN_LABELS[screen]}…</p>}>
+          <ScreenBody screen={screen} />
+        </Suspense>
       </main>
     </div>
   );

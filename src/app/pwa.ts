@@ -115,8 +115,8 @@ export async function applyUpdate(): Promise<void> {
       if (state.phase !== 'applying') return;
       applyRequested = false;
       sessionStorage.removeItem(UPDATED_FROM_KEY);
-      set({ phase: 'waiting', error: 'the new version did not take over within 15 s; this version keeps running' });
-    }, 15_000);
+      set({ phase: 'waiting', error: 'the new version did not take over within 45 s; this version keeps running' });
+    }, 45_000);
   } else {
     // Another window already applied it (or the worker is gone): loading again is enough.
     window.location.reload();

@@ -1,13 +1,17 @@
 // Reading and writing log files for the commands: the same readers as the app (src/format), a
 // size check before a file is read, and problems printed one per line with the file name.
-import { readFileSync, statSync, writeFileSync } from 'node:fs';
-import { looksLikeZip } from '../format/archive.ts';
+import { readFileSync, statSync } from 'node:fs';
+import { looksLikeZip, writeArchive } from '../format/archive.ts';
+import { exportLogJson } from '../format/encode.ts';
 import { readArchive } from '../format/archiveRead.ts';
 import { LIMITS } from '../format/limits.ts';
-import { formatReport, type ProblemReport } from '../format/problems.ts';
+import { formatProblem, formatReport, type ProblemReport } from '../format/problems.ts';
 import { readLogText, type ReadWarning } from '../format/read.ts';
+import { decodeLogText } from '../format/text.ts';
 import type { LogBundle, PhotoBytes } from '../format/types.ts';
-import { UsageError, type CliIO } from './command.ts';
+import { writeFileAtomic } from './atomicWrite.ts';
+import type { CliIO } from './command.ts';
+import { visible } from './terminalText.ts';
 
 export type LoadedLog =
   | { ok: true; file: string; bundle: LogBundle; photos: PhotoBytes; fromVersion: number; warnings: ReadWarning[] }
@@ -31,12 +35,14 @@ export function loadLog(file: string): LoadedLog {
     const r = readArchive(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
     return r.ok ? { ok: true, file, bundle: r.bundle, photos: r.photos, fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
   }
-  const r = readLogText(bytes.toString('utf8'), {}, size);
+  const decoded = decodeLogText(bytes);
+  if (!decoded.ok) return { ok: false, file, problems: { listed: [decoded.problem], more: 0 } };
+  const r = readLogText(decoded.text, {}, size);
   return r.ok ? { ok: true, file, bundle: r.bundle, photos: new Map(), fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
 }
 
 export function printProblems(io: CliIO, log: LoadedLog & { ok: false }) {
-  for (const line of formatReport(log.problems)) io.stderr(`${log.file}: ${line}`);
+  for (const line of formatReport(log.problems)) io.stderr(visible(`${log.file}: ${line}`));
 }
 
 /** Loads every file or none: the first rejected file is reported and null returned. */
@@ -54,10 +60,34 @@ export function loadAll(files: string[], io: CliIO): (LoadedLog & { ok: true })[
   return failed ? null : out;
 }
 
+/** Replaces `file` whole or not at all (see atomicWrite.ts); a failure throws WriteFailed. */
 export function writeOut(file: string, content: string[] | Uint8Array) {
-  try {
-    writeFileSync(file, Array.isArray(content) ? content.join('') : content);
-  } catch (e) {
-    throw new UsageError(`cannot write ${file}: ${e instanceof Error ? e.message.replace(/^[A-Z]+: /, '') : String(e)}`);
+  writeFileAtomic(file, content);
+}
+
+/**
+ * Writes a log as JSON or, for a name ending in .zip, as an archive with its photos; but first
+ * reads the result back as `validate` would, so the tool never writes a file it rejects. An
+ * archive needs the bytes of every photo the log names: a JSON log carries only their
+ * descriptions, so such a merge or conversion is refused with the names of what is missing.
+ */
+export function writeLog(file: string, bundle: LogBundle, photos: PhotoBytes): void {
+  const asZip = file.toLowerCase().endsWith('.zip');
+  if (asZip) {
+    const missing = bundle.photos.filter((p) => !photos.has(p.id));
+    if (missing.length > 0) {
+      const first = missing.slice(0, 3).map((p) => `"${p.id}"`).join(', ');
+      throw new Error(
+        `${file}: the log names ${missing.length} photo${missing.length === 1 ? '' : 's'} (${first}${missing.length > 3 ? ', ...' : ''}) whose bytes are in none of the input files ` +
+          '(a JSON log carries photo descriptions only); give the zip archives that hold them, or write a JSON log; nothing written',
+      );
+    }
   }
+  const content = asZip ? writeArchive(bundle, photos) : exportLogJson(bundle);
+  const back = content instanceof Uint8Array ? readArchive(content) : readLogText(content.join(''));
+  if (!back.ok) {
+    const why = back.problems.listed[0];
+    throw new Error(`${file}: the result would not pass validate (${why ? formatProblem(why) : 'rejected'}); nothing written`);
+  }
+  writeOut(file, content);
 }

@@ -5,8 +5,26 @@ import { realpathSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { EXIT_FAILURE, EXIT_OK, EXIT_USAGE, UsageError, type CliIO, type Command } from './command.ts';
 import { COMMANDS } from './commands/index.ts';
+import { visible } from './terminalText.ts';
 
 export const PROGRAM = 'floe-ledger';
+
+/**
+ * `summary FILE | head -1`: the reader closes the pipe and the next write fails with EPIPE,
+ * asynchronously, after the command has set its exit code. Nobody reads any more, so later
+ * output is dropped quietly instead of ending in a stack trace.
+ */
+let pipeGuarded = false;
+function quietOnClosedPipe() {
+  if (pipeGuarded) return;
+  pipeGuarded = true;
+  for (const stream of [process.stdout, process.stderr]) {
+    stream.on('error', (e: NodeJS.ErrnoException) => {
+      if (e.code === 'EPIPE') return;
+      throw e;
+    });
+  }
+}
 
 const processIO: CliIO = {
   stdout: (line) => process.stdout.write(`${line}\n`),
@@ -26,6 +44,7 @@ export function overview(commands: readonly Command[] = COMMANDS): string {
 
 /** Run the CLI on argv (without node and script) and return the exit code. */
 export async function runCli(argv: readonly string[], io: CliIO = processIO, commands: readonly Command[] = COMMANDS): Promise<number> {
+  if (io === processIO) quietOnClosedPipe();
   const [name, ...rest] = argv;
   if (name === undefined) {
     io.stderr(overview(commands));
@@ -54,11 +73,11 @@ export async function runCli(argv: readonly string[], io: CliIO = processIO, com
     return await command.run([...rest], io);
   } catch (e) {
     if (e instanceof UsageError) {
-      io.stderr(`${PROGRAM} ${command.name}: ${e.message}`);
+      io.stderr(`${PROGRAM} ${command.name}: ${visible(e.message)}`);
       io.stderr(`Run "npm run cli -- ${command.name} --help" for usage.`);
       return EXIT_USAGE;
     }
-    io.stderr(`${PROGRAM} ${command.name}: ${e instanceof Error ? e.message : String(e)}`);
+    io.stderr(`${PROGRAM} ${command.name}: ${visible(e instanceof Error ? e.message : String(e))}`);
     return EXIT_FAILURE;
   }
 }

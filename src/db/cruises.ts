@@ -29,6 +29,8 @@ export async function updateCruise(id: string, patch: CruisePatch): Promise<Crui
       const old = await db.cruises.get(id);
       if (!old) throw new RecordNotFoundError('cruise', id);
       const next: Cruise = { ...old, ...patch, id, createdAt: old.createdAt, updatedAt: nowIso() };
+      // `endTime: undefined` in a patch reopens the cruise: no key is stored for it.
+      if (next.endTime === undefined) delete next.endTime;
       checkCruise(next);
       await db.cruises.put(next);
       return next;

@@ -1,8 +1,9 @@
 // The typed Dexie database. Only this folder (src/db) touches IndexedDB.
 import { Dexie, type EntityTable, type Table } from 'dexie';
-import type { Cruise, Observation, TrackPoint } from '../domain/model';
-import type { ConflictRecord, DraftRecord, IceChartRow, IceGridRow, MetaRow, ObservationRevision, PhotoRecord, SettingRow } from './rows';
+import type { Cruise, Observation } from '../domain/model';
+import type { ConflictRecord, DraftRecord, IceChartRow, IceGridRow, MetaRow, ObservationRevision, PhotoRecord, SettingRow, SyncMark, SyncStateRow } from './rows';
 import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
+import type { TrackChunkRow } from './trackChunk';
 
 export const DEFAULT_DB_NAME = 'floe-ledger';
 
@@ -18,7 +19,8 @@ export class FloeDatabase extends Dexie {
   cruises!: EntityTable<Cruise, 'id'>;
   observations!: EntityTable<Observation, 'id'>;
   revisions!: Table<ObservationRevision, [string, number]>;
-  trackPoints!: Table<TrackPoint, [string, string]>;
+  /** The track, one row per cruise and UTC hour (schema version 4; `trackPoints` before). */
+  trackChunks!: Table<TrackChunkRow, [string, string]>;
   photos!: EntityTable<PhotoRecord, 'id'>;
   drafts!: Table<DraftRecord, [string, string]>;
   settings!: Table<SettingRow, string>;
@@ -26,6 +28,8 @@ export class FloeDatabase extends Dexie {
   conflicts!: EntityTable<ConflictRecord, 'id'>;
   iceCharts!: EntityTable<IceChartRow, 'id'>;
   iceGrids!: EntityTable<IceGridRow, 'id'>;
+  syncMarks!: Table<SyncMark, [string, string]>;
+  syncState!: EntityTable<SyncStateRow, 'key'>;
 
   /** The highest schema version this code declares. */
   readonly codeVersion: number;

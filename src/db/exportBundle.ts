@@ -2,11 +2,12 @@
 // current observations (deleted ones included: deletes are soft and travel with the log), their
 // earlier revisions, conflict copies, the track and the photos. One read transaction, so the
 // export is a consistent snapshot even while an observer saves.
-import { Dexie } from 'dexie';
 import type { LogBundle, PhotoBytes, PhotoMeta as FilePhotoMeta } from '../format/types';
 import { getDb } from './connection';
 import { RecordNotFoundError } from './errors';
 import type { PhotoRecord } from './rows';
+import { decodeChunk } from './trackChunk';
+import { allTrackChunksIn, countTrackPointsIn } from './trackPoints';
 
 export interface CruiseExport {
   bundle: LogBundle;
@@ -30,14 +31,14 @@ export function photoMetaOf(p: PhotoRecord): FilePhotoMeta {
 
 export async function readCruiseExport(cruiseId: string, opts: { photoBytes?: boolean } = {}): Promise<CruiseExport> {
   const db = getDb();
-  const { bundle, blobs } = await db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+  const { bundle, blobs } = await db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = await db.cruises.get(cruiseId);
     if (!cruise) throw new RecordNotFoundError('cruise', cruiseId);
     const observations = await db.observations.where('cruiseId').equals(cruiseId).toArray();
     const ids = observations.map((o) => o.id);
     const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();
-    const track = await db.trackPoints.where('[cruiseId+time]').between([cruiseId, Dexie.minKey], [cruiseId, Dexie.maxKey], true, true).toArray();
+    const track = (await allTrackChunksIn(db, cruiseId)).flatMap(decodeChunk);
     const photoRows = await db.photos.where('cruiseId').equals(cruiseId).toArray();
     const b: LogBundle = {
       cruise,
@@ -62,12 +63,12 @@ export async function readCruiseExport(cruiseId: string, opts: { photoBytes?: bo
  */
 export async function cruiseChangeStamp(cruiseId: string): Promise<string> {
   const db = getDb();
-  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = await db.cruises.get(cruiseId);
     const obs = await db.observations.where('cruiseId').equals(cruiseId).count();
     const revs = await db.revisions.count();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).count();
-    const track = await db.trackPoints.where('[cruiseId+time]').between([cruiseId, Dexie.minKey], [cruiseId, Dexie.maxKey], true, true).count();
+    const track = await countTrackPointsIn(db, cruiseId);
     const photos = await db.photos.where('cruiseId').equals(cruiseId).count();
     return [cruise?.updatedAt ?? '', obs, revs, conflicts, track, photos].join('|');
   });

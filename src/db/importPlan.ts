@@ -2,13 +2,14 @@
 // cruise, current observations, history rows, conflict copies, track points and photos are
 // written together or not at all. Before writing it checks that nothing the plan was made
 // against has changed since (another tab saved an edit while the preview was open).
-import { Dexie } from 'dexie';
 import type { Observation } from '../domain/model';
 import { canonicalJson, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
 import type { PhotoBytes } from '../format/types';
 import { getDb, writableDb } from './connection';
 import { FloeDbError, mapWriteError } from './errors';
 import type { ConflictRecord, ObservationRevision, PhotoRecord } from './rows';
+import { allTrackChunksIn, mergeTrackPointsInTransaction, storedTrackTimes } from './trackPoints';
+import { toTimed } from './trackChunk';
 import { nowIso } from './validate';
 
 /** The store changed between the preview and the apply; nothing was written. */
@@ -39,13 +40,13 @@ export function conflictId(o: Observation): string {
 /** What is stored for a cruise, in the form the merge planner asks for. */
 export async function loadMergeTarget(cruiseId: string): Promise<MergeTarget> {
   const db = getDb();
-  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = (await db.cruises.get(cruiseId)) ?? null;
     const observations = await db.observations.where('cruiseId').equals(cruiseId).toArray();
     const ids = observations.map((o) => o.id);
     const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();
-    const trackKeys = await db.trackPoints.where('[cruiseId+time]').between([cruiseId, Dexie.minKey], [cruiseId, Dexie.maxKey], true, true).primaryKeys();
+    const hasTrackTime = storedTrackTimes(await allTrackChunksIn(db, cruiseId));
     const photoIds = await db.photos.where('cruiseId').equals(cruiseId).primaryKeys();
     const others = new Map<string, Observation[]>();
     for (const v of [...revisions.map((r) => r.observation), ...conflicts.map((c) => c.observation)]) {
@@ -54,7 +55,6 @@ export async function loadMergeTarget(cruiseId: string): Promise<MergeTarget> {
       else others.set(v.id, [v]);
     }
     const current = new Map(observations.map((o) => [o.id, o]));
-    const times = new Set(trackKeys.map((k) => k[1]));
     const photos = new Set(photoIds);
     return {
       cruise,
@@ -62,7 +62,7 @@ export async function loadMergeTarget(cruiseId: string): Promise<MergeTarget> {
         const c = current.get(id);
         return c ? { current: c, others: others.get(id) ?? [] } : undefined;
       },
-      hasTrackTime: (t: string) => times.has(t),
+      hasTrackTime,
       hasPhoto: (id: string) => photos.has(id),
     };
   });
@@ -84,8 +84,6 @@ export interface ApplyResult {
   /** Photos the file lists but does not contain (a plain JSON log): not stored. */
   photosWithoutBytes: number;
 }
-
-const TRACK_CHUNK = 50_000;
 
 export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promise<ApplyResult> {
   const db = await writableDb();
@@ -123,7 +121,7 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
     observation: o,
   }));
   try {
-    await db.transaction('rw', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackPoints, db.photos], async () => {
+    await db.transaction('rw', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
       const expected = new Map(plan.items.map((i) => [i.id, i.storedRevision]));
       const ids = [...expected.keys()];
       const now = await db.observations.bulkGet(ids);
@@ -136,7 +134,7 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
       // bulkAdd: an existing history row is never replaced; a clash aborts the whole import.
       if (revisionRows.length > 0) await db.revisions.bulkAdd(revisionRows);
       if (conflictRows.length > 0) await db.conflicts.bulkPut(conflictRows);
-      for (let i = 0; i < plan.addTrack.length; i += TRACK_CHUNK) await db.trackPoints.bulkPut(plan.addTrack.slice(i, i + TRACK_CHUNK));
+      if (plan.addTrack.length > 0) await mergeTrackPointsInTransaction(db, plan.addTrack.map(toTimed));
       if (photoRows.length > 0) await db.photos.bulkAdd(photoRows);
     });
   } catch (err) {

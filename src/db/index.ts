@@ -30,10 +30,24 @@ export {
   type DeleteOptions,
   type ListObservationsQuery,
 } from './observations';
-export { addTrackPoints, listTrackPoints, countTrackPoints, trackPointAtOrBefore, DEFAULT_TRACK_CHUNK, type AddTrackPointsOptions, type AddTrackPointsResult } from './trackPoints';
+export {
+  addTrackPoints,
+  listTrackPoints,
+  trackPointsOfHour,
+  listTrackChunks,
+  countTrackPoints,
+  trackPointAtOrBefore,
+  DEFAULT_TRACK_CHUNK,
+  type AddTrackPointsOptions,
+  type AddTrackPointsResult,
+  type TrackRange,
+} from './trackPoints';
+export { decodeChunk, pointAt, type TrackChunkRow } from './trackChunk';
 export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';
 export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
+export { markOnServer, serverMarks, revisionsOnServer, getSyncState, putSyncState, forgetServer, readSyncSource, type SyncSource } from './syncMarks';
 export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';
 export { saveIceChart, saveIceGrid, listIceCharts, listIceGrids, listIceInfo, setIceInfoVisible, deleteIceInfo } from './iceProducts';
+export { exportLogPieces, type ExportStreamOptions } from './exportStream';

@@ -74,6 +74,50 @@ export interface SettingValues {
   lastExportAt: IsoUtc | null;
   /** Collocation with ice charts and grids: time limits (hours) and the grid sampling method. */
   iceInfoCollocation: { chartMaxHours: number; gridMaxHours: number; gridMethod: 'nearest' | 'bilinear' };
+  /** The ship server this laptop syncs with (src/sync); the password is never kept. */
+  syncServer: SyncServerSetting | null;
+}
+
+export interface SyncServerSetting {
+  /** The server's base address, e.g. http://192.168.1.10:5984/ */
+  url: string;
+  user: string;
+  enabled: boolean;
+  /** A cruise to receive from the server while this laptop has no active cruise (joining mid-cruise). */
+  joinCruiseId?: string;
+}
+
+/** A document the ship server is known to hold: sent by this laptop or pulled from it. */
+export interface SyncMark {
+  /** The server database's address (server base + database name). */
+  server: string;
+  docId: string;
+  cruiseId: string;
+  /** For an observation revision; '' and 0 for other documents. */
+  observationId: string;
+  revision: number;
+  at: IsoUtc;
+}
+
+export interface SyncRefusal {
+  docId: string;
+  reason: string;
+  at: IsoUtc;
+}
+
+/** Pull state per server database. */
+export interface SyncStateRow {
+  /** The server database's address. */
+  key: string;
+  cruiseId: string;
+  /** The `_changes` sequence everything up to which is merged here. */
+  since: string;
+  /** The checkpoint before `since` (the server's copy may lag one step behind). */
+  previousSince?: string;
+  /** Pulled documents refused, newest last (kept to the last 200). */
+  refused: SyncRefusal[];
+  lastPullAt: IsoUtc | null;
+  lastPushAt: IsoUtc | null;
 }
 export type SettingKey = keyof SettingValues;
 

@@ -2,6 +2,8 @@
 // edited: a change is a new entry with a higher number, its full `stores` and, when existing
 // rows must change shape, an `upgrade` function. See docs/dev/db.md.
 import type { Transaction } from 'dexie';
+import { upgradeToIceTypeGroups } from './upgradeIceTypes';
+import { convertTrackPointsToChunks } from './trackUpgrade';
 
 export interface SchemaVersion {
   version: number;
@@ -48,10 +50,9 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       conflicts: 'id, observationId, cruiseId',
     },
   },
-  // Versions 3 and 4 belong to other branches (issues 11 and 15); Dexie allows the gap.
   {
-    version: 5,
-    note: 'ice information: imported ice charts (SIGRID-3) and satellite concentration grids, each with its time',
+    version: 3,
+    note: 'log format 2 layout: deformation and snow of each ice type move into groups of their own (observations, revisions, conflicts and drafts rewritten; old snow kinds mapped or kept in the notes)',
     stores: {
       cruises: 'id, name',
       observations: 'id, [cruiseId+time], observerId, cruiseId',
@@ -62,7 +63,64 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       settings: 'key',
       meta: 'key',
       conflicts: 'id, observationId, cruiseId',
+    },
+    upgrade: upgradeToIceTypeGroups,
+    rewrites: ['observations', 'revisions', 'conflicts', 'drafts'],
+  },
+  {
+    version: 4,
+    note: 'track stored in chunks: one trackChunks row per cruise and UTC hour with columnar typed arrays; trackPoints rows converted and the table removed',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackPoints: null,
+      // One row per cruise and UTC hour (also the unit of a sync document). The second index
+      // carries the point count, so counting a track reads index keys, not the arrays.
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+    },
+    rewrites: ['trackPoints'],
+    upgrade: (tx) => convertTrackPointsToChunks(tx),
+  },
+  {
+    version: 5,
+    note: 'ice information: imported ice charts (SIGRID-3) and satellite concentration grids, each with its time',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
       // Charts and grids are area products, not tied to one cruise; listed by their valid time.
+      iceCharts: 'id, chartTime',
+      iceGrids: 'id, gridTime',
+    },
+  },
+  {
+    version: 6,
+    note: 'syncMarks and syncState: which documents a ship server holds, and the pull checkpoint and refusals per server database (src/sync)',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+      // One row per document the server is known to hold (sent, or pulled from it).
+      syncMarks: '[server+docId], [server+cruiseId]',
+      syncState: 'key',
       iceCharts: 'id, chartTime',
       iceGrids: 'id, gridTime',
     },

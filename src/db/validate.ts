@@ -3,6 +3,7 @@
 // these checks only guard the shape the indexes and the other layers rely on.
 import {
   FLOE_SIZE_KEYS,
+  ICE_TYPE_LETTERS,
   POSITION_SOURCES,
   STAGE_KEYS,
   VESSEL_ICE_CLASSES,
@@ -65,13 +66,24 @@ export function checkObservation(o: ObservationInput): void {
     if (o.position.fixTime !== undefined) c.time('position.fixTime', o.position.fixTime);
   }
   if (!Array.isArray(o.categories)) c.fail('categories', 'must be a list');
-  if (o.categories.length > 3) c.fail('categories', `holds at most 3 ice categories, got ${o.categories.length}`);
+  if (o.categories.length > 3) c.fail('categories', `holds at most 3 ice types, got ${o.categories.length}`);
   o.categories.forEach((cat, i) => {
     c.number(`categories.${i}.partialConcentration`, cat.partialConcentration, 0, 10, { integer: true });
     c.oneOf(`categories.${i}.stage`, cat.stage, STAGE_KEYS);
     if (cat.floeSize !== undefined) c.oneOf(`categories.${i}.floeSize`, cat.floeSize, FLOE_SIZE_KEYS);
     c.optionalNumber(`categories.${i}.thicknessCm`, cat.thicknessCm, 0, 10_000);
   });
+  // Deformation and snow are records keyed by ice type letter.
+  for (const group of ['deformation', 'snow'] as const) {
+    const g: unknown = o[group];
+    if (g === undefined) continue;
+    if (typeof g !== 'object' || g === null || Array.isArray(g)) c.fail(group, 'must be a record keyed by ice type (a, b, c)');
+    for (const [k, entry] of Object.entries(g as Record<string, unknown>)) {
+      // A letter past the observation's ice types is the domain rules' to report (group-without-ice-type).
+      if (!(ICE_TYPE_LETTERS as readonly string[]).includes(k)) c.fail(`${group}.${k}`, 'is not an ice type letter (a, b, c)');
+      if (typeof entry !== 'object' || entry === null || Array.isArray(entry)) c.fail(`${group}.${k}`, 'must be a record');
+    }
+  }
   if (typeof o.notes !== 'string') c.fail('notes', 'must be text');
   if (!Array.isArray(o.photoIds) || o.photoIds.some((p) => typeof p !== 'string')) c.fail('photoIds', 'must be a list of photo ids');
 }
@@ -101,16 +113,24 @@ export function checkCruise(x: Cruise): void {
   });
   c.time('createdAt', x.createdAt);
   c.time('updatedAt', x.updatedAt);
+  if (x.endTime !== undefined) c.time('endTime', x.endTime);
 }
 
-/** Throws for the first bad point, naming its index in the list handed in. */
-export function checkTrackPoint(p: TrackPoint, index: number): void {
+/**
+ * Throws for the first bad point, naming its index in the list handed in. `timeChecked`: the
+ * caller has already read the time with the track's own parser (which accepts only valid times).
+ */
+export function checkTrackPoint(p: TrackPoint, index: number, timeChecked = false): void {
   const c = new Checker('track point');
   const at = `points.${index}`;
   if (typeof p.cruiseId !== 'string' || p.cruiseId === '') c.fail(`${at}.cruiseId`, 'must not be empty');
-  if (!isIsoUtc(p.time)) c.time(`${at}.time`, p.time);
+  if (!timeChecked && !isIsoUtc(p.time)) c.time(`${at}.time`, p.time);
   // Plain comparisons first: this runs a million times in a bulk import.
   if (!(p.lat >= -90 && p.lat <= 90)) c.number(`${at}.lat`, p.lat, -90, 90);
   if (!(p.lon >= -180 && p.lon <= 180)) c.number(`${at}.lon`, p.lon, -180, 180);
   if (!POSITION_SOURCES.includes(p.source)) c.oneOf(`${at}.source`, p.source, POSITION_SOURCES);
+  // The chunk columns keep "not known" as NaN, so a value that is present must be a number.
+  if (p.sogKn !== undefined && !Number.isFinite(p.sogKn)) c.number(`${at}.sogKn`, p.sogKn, -Infinity, Infinity);
+  if (p.cogDeg !== undefined && !Number.isFinite(p.cogDeg)) c.number(`${at}.cogDeg`, p.cogDeg, -Infinity, Infinity);
+  if (p.headingDeg !== undefined && !Number.isFinite(p.headingDeg)) c.number(`${at}.headingDeg`, p.headingDeg, -Infinity, Infinity);
 }

@@ -4,8 +4,9 @@
 // Basin (to about 83.6 N), holds an ice station, and returns, over six days of March 2026.
 // Everything here (vessel, cruise, observers, numbers) is invented and is for the demo only.
 import { destination, geodesicInverse, METRES_PER_NM, pointAlongGeodesic } from './geodesy';
+import { groupFromList } from './iceTypes';
 import type {
-  Cruise, IceCategory, Icebergs, IsoUtc, Observation, Observer, OpenWater, TrackPoint, Weather,
+  Cruise, Deformation, IceCategory, Icebergs, IsoUtc, Observation, Observer, OpenWater, SnowCover, TrackPoint, Weather,
 } from './model';
 import { freezingPointC } from './seawater';
 
@@ -163,9 +164,14 @@ const round1 = (x: number): number => Math.round(x * 10) / 10;
 const round2 = (x: number): number => Math.round(x * 100) / 100;
 const clamp = (x: number, lo: number, hi: number): number => Math.max(lo, Math.min(hi, x));
 
+/** An ice type of the scenario with its deformation and snow, split into the groups at the end. */
+interface DemoIceType extends IceCategory, Deformation {
+  snowOn?: SnowCover;
+}
+
 interface IceState {
   total: number;
-  categories: IceCategory[];
+  categories: DemoIceType[];
   openWater?: OpenWater;
   icebergs?: Icebergs;
 }
@@ -202,12 +208,13 @@ function iceAt(depthNm: number, lat: number, n: NoiseSet, rng: Prng): IceState {
     const a = 1;
     const b = Math.max(1, Math.round((total - a) * 0.6));
     const rest = total - a - b;
-    const cats: IceCategory[] = [
+    // Floes washed by the swell carry a little wet snow; pancakes carry none.
+    const cats: DemoIceType[] = [
       {
-        partialConcentration: a, stage: 'thin-first-year', thicknessCm: Math.round(45 + 12 * h),
-        floeSize: c > 0 ? 'ice-cake' : 'small-ice-cake', snowKind: 'wet', snowDepthCm: Math.round(4 + 2 * s),
+        partialConcentration: a, stage: 'thin-first-year', floeSize: c > 0 ? 'ice-cake' : 'small-ice-cake',
+        thicknessCm: Math.round(45 + 12 * h), snowOn: { cover: 'partial', wetness: 'wet', depthCm: Math.round(4 + 2 * s) },
       },
-      { partialConcentration: b, stage: 'grey', thicknessCm: Math.round(12 + 2 * h), floeSize: 'pancake', snowKind: 'none' },
+      { partialConcentration: b, stage: 'grey', floeSize: 'pancake', thicknessCm: Math.round(12 + 2 * h), snowOn: { cover: 'none' } },
     ];
     if (rest > 0) cats.push({ partialConcentration: rest, stage: 'nilas', thicknessCm: Math.round(5 + 3 * h) });
     const growlers = c > 0.2 ? rng.int(1, 3) : 0;
@@ -220,19 +227,19 @@ function iceAt(depthNm: number, lat: number, n: NoiseSet, rng: Prng): IceState {
     const a = Math.max(1, Math.round(total * 0.45));
     const b = Math.max(1, Math.round(total * 0.35));
     const rest = total - a - b;
-    const cats: IceCategory[] = [
+    const cats: DemoIceType[] = [
       {
-        partialConcentration: a, stage: 'medium-first-year', thicknessCm: Math.round(92 + 15 * h),
-        floeSize: f > 0.5 ? 'medium-floe' : 'small-floe', ridgedTenths: clamp(Math.round(1 + r), 0, 2),
-        sailHeightM: round1(0.8 + 0.2 * r), snowKind: 'wind-packed', snowDepthCm: Math.round(12 + 4 * s),
+        partialConcentration: a, stage: 'medium-first-year', floeSize: f > 0.5 ? 'medium-floe' : 'small-floe',
+        thicknessCm: Math.round(92 + 15 * h), ridgedTenths: clamp(Math.round(1 + r), 0, 2),
+        sailHeightM: round1(0.8 + 0.2 * r), snowOn: { cover: 'complete', wetness: 'dry', crust: true, depthCm: Math.round(12 + 4 * s) },
       },
       {
-        partialConcentration: b, stage: 'thin-first-year', thicknessCm: Math.round(52 + 12 * h),
-        floeSize: f > 0.5 ? 'small-floe' : 'ice-cake', snowKind: 'fresh-loose', snowDepthCm: Math.round(5 + 2 * s),
+        partialConcentration: b, stage: 'thin-first-year', floeSize: f > 0.5 ? 'small-floe' : 'ice-cake',
+        thicknessCm: Math.round(52 + 12 * h), snowOn: { cover: 'complete', wetness: 'dry', depthCm: Math.round(5 + 2 * s) },
       },
     ];
     if (rest > 0) {
-      cats.push({ partialConcentration: rest, stage: 'grey-white', thicknessCm: Math.round(22 + 5 * h), floeSize: 'ice-cake', snowKind: 'patchy', snowDepthCm: 1 });
+      cats.push({ partialConcentration: rest, stage: 'grey-white', floeSize: 'ice-cake', thicknessCm: Math.round(22 + 5 * h), snowOn: { cover: 'partial', wetness: 'dry', depthCm: 1 } });
     }
     return { total, categories: cats };
   }
@@ -241,23 +248,24 @@ function iceAt(depthNm: number, lat: number, n: NoiseSet, rng: Prng): IceState {
   const total = c > 0.1 - 0.3 * inward ? 10 : 9;
   const old = clamp(Math.round((lat - 82.3) * 2.5 + c), 0, 4);
   const bigFloes = inward > 0.5 ? 'vast-floe' : 'big-floe';
-  const cats: IceCategory[] = [];
+  const cats: DemoIceType[] = [];
   if (old > 0) {
     const multi = lat > 83.0;
     cats.push({
-      partialConcentration: old, stage: multi ? 'multi-year' : 'second-year',
-      thicknessCm: Math.round((multi ? 290 : 200) + 30 * h), floeSize: bigFloes,
+      partialConcentration: old, stage: multi ? 'multi-year' : 'second-year', floeSize: bigFloes,
+      thicknessCm: Math.round((multi ? 290 : 200) + 30 * h),
       ridgedTenths: clamp(Math.round(3 + r), 1, 5), sailHeightM: round1(2.2 + 0.6 * r),
-      snowKind: 'drifted', snowDepthCm: Math.round(35 + 8 * s),
+      snowOn: { cover: 'complete', wetness: 'dry', drifts: true, depthCm: Math.round(35 + 8 * s) },
     });
   }
   const thickFy = total - old - 1;
   cats.push({
-    partialConcentration: thickFy, stage: 'thick-first-year', thicknessCm: Math.round(140 + 15 * h),
-    floeSize: old > 0 ? 'medium-floe' : bigFloes, ridgedTenths: clamp(Math.round(2 + 2 * inward + r), 1, 5),
-    sailHeightM: round1(1.4 + 0.4 * inward + 0.3 * r), snowKind: 'wind-packed', snowDepthCm: Math.round(22 + 5 * s),
+    partialConcentration: thickFy, stage: 'thick-first-year', floeSize: old > 0 ? 'medium-floe' : bigFloes,
+    thicknessCm: Math.round(140 + 15 * h), ridgedTenths: clamp(Math.round(2 + 2 * inward + r), 1, 5),
+    sailHeightM: round1(1.4 + 0.4 * inward + 0.3 * r),
+    snowOn: { cover: 'complete', wetness: 'dry', crust: true, drifts: inward > 0.5, depthCm: Math.round(22 + 5 * s) },
   });
-  cats.push({ partialConcentration: 1, stage: 'grey-white', thicknessCm: Math.round(20 + 5 * h), floeSize: 'small-floe', snowKind: 'patchy', snowDepthCm: 2 });
+  cats.push({ partialConcentration: 1, stage: 'grey-white', floeSize: 'small-floe', thicknessCm: Math.round(20 + 5 * h), snowOn: { cover: 'partial', wetness: 'dry', depthCm: 2 } });
   const openWater: OpenWater = total === 9
     ? { kind: 'lead', widthM: Math.round(rng.range(40, 400)), orientationDeg: rng.int(0, 179) }
     : { kind: c > 0.5 ? 'crack' : 'refrozen-lead', widthM: Math.round(rng.range(2, 30)), orientationDeg: rng.int(0, 179) };
@@ -281,6 +289,25 @@ function weatherAt(depthNm: number, hour: number, n: NoiseSet): Weather {
   const visibilityKm = vis > 0.6 ? 1 : vis > 0.3 ? 4 : 15;
   const cloudOktas = clamp(Math.round(5 + 3 * vis), 0, 8);
   return { airTempC, waterTempC, salinityPsu, windSpeedKn, windFromDeg, visibilityKm, cloudOktas };
+}
+
+/** The scenario's ice types as the observation holds them: ice types, deformation, snow. */
+function splitDemoIceTypes(list: readonly DemoIceType[]): Pick<Observation, 'categories' | 'deformation' | 'snow'> {
+  const categories: IceCategory[] = list.map((t) => {
+    const c: IceCategory = { partialConcentration: t.partialConcentration, stage: t.stage };
+    if (t.floeSize !== undefined) c.floeSize = t.floeSize;
+    if (t.thicknessCm !== undefined) c.thicknessCm = t.thicknessCm;
+    return c;
+  });
+  const deformation = groupFromList(list.map((t) => {
+    const d: Deformation = {};
+    if (t.ridgedTenths !== undefined) d.ridgedTenths = t.ridgedTenths;
+    if (t.raftedTenths !== undefined) d.raftedTenths = t.raftedTenths;
+    if (t.sailHeightM !== undefined) d.sailHeightM = t.sailHeightM;
+    return d;
+  }));
+  const snow = groupFromList(list.map((t) => t.snowOn));
+  return { categories, ...(deformation ? { deformation } : {}), ...(snow ? { snow } : {}) };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -395,7 +422,7 @@ export function makeDemoCruise(seed = 1): DemoCruise {
       position: { lat: Number(p.lat.toFixed(5)), lon: Number(p.lon.toFixed(5)), source: 'gps-serial', accuracyM: 5 },
       observerId: observer.id,
       totalConcentration: ice.total,
-      categories: ice.categories,
+      ...splitDemoIceTypes(ice.categories),
       weather,
       notes: notes.join(' '),
       photoIds: [],

@@ -5,7 +5,10 @@
 //   So Sa Sb Sc Sd  stage of a trace of thicker ice, the three stages thickest first, and the
 //               stage of any remaining thinner ice
 //   Fa Fb Fc    form (floe size) of Sa Sb Sc
-// Where only one ice type is present, Ca is left blank (its concentration is Ct).
+// Where only one ice type is present, Ca is left blank (its concentration is Ct); a category with
+// a remaining stage Sd is two ice types, so Ca is written.
+// The egg code holds three categories; a fourth and thinner one (from a draft, a preview or a
+// file before the rules refuse it) becomes Sd, the stage of the remaining ice, never dropped.
 // Dotted stage codes (1. medium first-year ... 9. multi-year) are written with their dot here.
 // When reading, the chart convention that a dot also applies to every code to its left can be
 // applied (`dotRule: 'inherit'`), see readEggCode.
@@ -13,7 +16,7 @@
 import type { FloeSizeKey, IceCategory, Observation, StageKey } from './model.ts';
 import { FLOE_SIZE_KEYS, STAGE_KEYS } from './model.ts';
 import { FLOE_SIZES, STAGES } from './nomenclature.ts';
-import { sortCategoriesThickestFirst } from './ordering.ts';
+import { isStageSurelyThicker, sortCategoriesThickestFirst } from './ordering.ts';
 import { err, ok, type Result } from './result.ts';
 
 /** The egg code fields as text; an empty string is a blank field. */
@@ -47,21 +50,50 @@ const blankCode = (): EggCode => ({
 export type EggCodeInput = Pick<Observation, 'totalConcentration' | 'categories'> &
   Partial<Pick<Observation, 'traceStage' | 'remainingStage'>>;
 
+/** The categories the egg code shows (Sa, Sb, Sc) and its remaining stage (Sd). */
+export interface EggCodeLayout {
+  /** At most three, thickest first. */
+  categories: IceCategory[];
+  remainingStage?: StageKey;
+  /** Categories beyond the third, thickest first: their stages are folded into Sd. */
+  folded: IceCategory[];
+}
+
+/**
+ * Thickest first, three categories at most; whatever is beyond the third is remaining ice, and Sd
+ * is the thickest stage of the remaining ice (a fourth category, or the recorded Sd if that is
+ * surely thicker).
+ */
+export function eggCodeLayout(obs: Pick<EggCodeInput, 'categories' | 'remainingStage'>): EggCodeLayout {
+  const sorted = sortCategoriesThickestFirst(obs.categories).categories;
+  const categories = sorted.slice(0, 3);
+  const folded = sorted.slice(3);
+  const out: EggCodeLayout = { categories, folded };
+  const fourth = folded[0];
+  if (fourth && obs.remainingStage && isStageSurelyThicker(obs.remainingStage, fourth.stage)) out.remainingStage = obs.remainingStage;
+  else if (fourth) out.remainingStage = fourth.stage;
+  else if (obs.remainingStage) out.remainingStage = obs.remainingStage;
+  return out;
+}
+
 /**
  * The egg code of an observation. Categories are put thickest first (whatever order they were
- * entered in); only the first three are used.
+ * entered in); a fourth and thinner category becomes Sd (see eggCodeLayout).
  */
 export function deriveEggCode(obs: EggCodeInput): EggCode {
   const code = blankCode();
   code.ct = obs.totalConcentration === null ? EGG_UNKNOWN : String(obs.totalConcentration);
-  const cats = sortCategoriesThickestFirst(obs.categories).categories.slice(0, 3);
+  const layout = eggCodeLayout(obs);
+  const cats = layout.categories;
+  // Ca is blank only for a single ice type: one category and no remaining stage.
+  const writePartials = cats.length > 1 || layout.remainingStage !== undefined;
   cats.forEach((c, i) => {
     code[S_FIELDS[i] as EggCodeField] = stageSymbol(c.stage);
     code[F_FIELDS[i] as EggCodeField] = c.floeSize ? (FLOE_SIZES[c.floeSize] as (typeof FLOE_SIZES)[FloeSizeKey] | undefined)?.eggCode ?? EGG_UNKNOWN : '';
-    if (cats.length > 1) code[C_FIELDS[i] as EggCodeField] = String(c.partialConcentration);
+    if (writePartials) code[C_FIELDS[i] as EggCodeField] = String(c.partialConcentration);
   });
   if (obs.traceStage) code.so = stageSymbol(obs.traceStage);
-  if (obs.remainingStage) code.sd = stageSymbol(obs.remainingStage);
+  if (layout.remainingStage) code.sd = stageSymbol(layout.remainingStage);
   return code;
 }
 
@@ -70,9 +102,13 @@ function stageSymbol(stage: StageKey): string {
   return (STAGES[stage] as (typeof STAGES)[StageKey] | undefined)?.eggCode ?? EGG_UNKNOWN;
 }
 
-/** One-line form for lists and CSV: `Ct Ca Cb Cc / So Sa Sb Sc Sd / Fa Fb Fc`, `-` for blank. */
+/**
+ * One-line form for lists and files: `Ct Ca Cb Cc / So Sa Sb Sc Sd / Fa Fb Fc`, `-` for blank.
+ * A dotted stage symbol is followed by two spaces instead of one, so that "1.  7 5" cannot be
+ * read as the number 1.75 (show it with white space kept, e.g. CSS `white-space: pre`).
+ */
 export function eggCodeText(code: EggCode): string {
-  return TEXT_GROUPS.map((g) => g.map((f) => code[f] || '-').join(' ')).join(' / ');
+  return TEXT_GROUPS.map((g) => g.map((f) => code[f] || '-').reduce((line, sym, i) => (i === 0 ? sym : line + (line.endsWith('.') ? '  ' : ' ') + sym), '')).join(' / ');
 }
 
 /** The first stage of our table that carries each egg code symbol: the key a code reads back as. */
@@ -195,6 +231,8 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
 
   const categories: EggCodeCategoryReading[] = [];
   const present = S_FIELDS.filter((f) => code[f] !== '').length;
+  // A single ice type: one of Sa..Sc and no Sd. With Sd there are two, and Ca is written.
+  const single = present === 1 && stages[4] === undefined;
   for (let i = 0; i < 3; i++) {
     const sf = S_FIELDS[i] ?? 'sa';
     const cf = C_FIELDS[i] ?? 'ca';
@@ -207,11 +245,15 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
     }
     if (categories.length !== i) return err(`${sf} is set but the stage before it is blank`);
     let partial: number | null;
-    if (present === 1) {
+    if (single) {
       if (code[cf] !== '') return err(`${cf} "${code[cf]}" must be blank for a single ice type (its concentration is Ct)`);
       partial = total.value;
     } else {
-      if (code[cf] === '') return err(`${cf} is blank but ${present} ice types are given: each needs its partial concentration`);
+      if (code[cf] === '') {
+        return err(present === 1
+          ? `${cf} is blank but Sd is given: with a remaining stage there are two ice types, so ${cf} needs its partial concentration`
+          : `${cf} is blank but ${present} ice types are given: each needs its partial concentration`);
+      }
       const p = parseConcentration(cf, code[cf], false);
       if (!p.ok) return p;
       partial = p.value;
@@ -236,13 +278,17 @@ export function readEggCode(input: string | EggCode, opts: ReadEggCodeOptions = 
 
 export type EggShape =
   | { kind: 'ellipse'; cx: number; cy: number; rx: number; ry: number }
-  | { kind: 'line'; x1: number; y1: number; x2: number; y2: number };
+  | { kind: 'line'; x1: number; y1: number; x2: number; y2: number }
+  /** The dot of a dotted stage symbol ("1." medium first-year ...): a filled disc. */
+  | { kind: 'dot'; cx: number; cy: number; r: number; field: EggCodeField };
 
 export interface EggText {
   x: number;
   y: number;
   text: string;
   field: EggCodeField;
+  /** Font size in drawing units. */
+  size: number;
 }
 
 export interface EggCodeDrawing {
@@ -273,7 +319,26 @@ function halfWidthAt(y: number): number {
 
 const round1 = (v: number): number => Math.round(v * 10) / 10;
 
-/** The egg symbol as shapes and texts in a 120 x 160 box. Blank fields draw no text. */
+/** Font size of the egg's symbols, in drawing units (the box is 120 wide). */
+export const EGG_FONT = 20;
+/** The stage row's font when So or Sd is present and the row holds five columns. */
+export const EGG_FONT_CROWDED = 18;
+/**
+ * Where a stage symbol's dot sits, relative to the digit's centre, in ems: just right of the
+ * digit at its foot. The dot is drawn as a shape, not as a "." glyph, so its place does not
+ * depend on the font, and the gap to the next symbol is fixed by the layout: at least
+ * 0.4 em with five stage columns and 0.6 em with three, against a few hundredths of an em
+ * between a digit and a full stop in running text, so "1. 7 5" never reads as "1.75".
+ */
+export const DOT_DX_EM = 0.42;
+export const DOT_DY_EM = 0.27;
+export const DOT_R_EM = 0.09;
+
+/**
+ * The egg symbol as shapes and texts in a 120 x 160 box. Blank fields draw no text. Stage
+ * symbols share the C row's three columns (Sa under Ca ...), unless So or Sd is present: then
+ * the stage row has five columns, 24 apart, in a slightly smaller font.
+ */
 export function eggCodeDrawing(code: EggCode): EggCodeDrawing {
   const shapes: EggShape[] = [{ kind: 'ellipse', cx: CX, cy: CY, rx: RX, ry: RY }];
   for (const y of DIVIDERS) {
@@ -281,15 +346,22 @@ export function eggCodeDrawing(code: EggCode): EggCodeDrawing {
     shapes.push({ kind: 'line', x1: round1(CX - hw), y1: y, x2: round1(CX + hw), y2: y });
   }
   const texts: EggText[] = [];
-  const put = (field: EggCodeField, x: number, y: number): void => {
-    if (code[field] !== '') texts.push({ x, y, text: code[field], field });
+  const put = (field: EggCodeField, x: number, y: number, size = EGG_FONT): void => {
+    const value = code[field];
+    if (value === '') return;
+    const dotted = value.length > 1 && value.endsWith('.');
+    texts.push({ x, y, text: dotted ? value.slice(0, -1) : value, field, size });
+    if (dotted) shapes.push({ kind: 'dot', cx: round1(x + DOT_DX_EM * size), cy: round1(y + DOT_DY_EM * size), r: round1(DOT_R_EM * size), field });
   };
   put('ct', CX, ROWS[0]);
   const cols = [CX - 30, CX, CX + 30];
   C_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[1]));
-  // So and Sd sit either side of Sa..Sc, so the stage row is five columns, 24 apart.
-  const sCols = [CX - 48, CX - 24, CX, CX + 24, CX + 48];
-  (['so', 'sa', 'sb', 'sc', 'sd'] as const).forEach((f, i) => put(f, sCols[i] ?? CX, ROWS[2]));
+  if (code.so === '' && code.sd === '') {
+    S_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[2]));
+  } else {
+    const sCols = [CX - 48, CX - 24, CX, CX + 24, CX + 48];
+    (['so', 'sa', 'sb', 'sc', 'sd'] as const).forEach((f, i) => put(f, sCols[i] ?? CX, ROWS[2], EGG_FONT_CROWDED));
+  }
   F_FIELDS.forEach((f, i) => put(f, cols[i] ?? CX, ROWS[3]));
   return { width: W, height: H, shapes, texts, title: `Egg code ${eggCodeText(code)}` };
 }

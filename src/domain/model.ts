@@ -30,19 +30,36 @@ export const STAGE_KEYS = [
 ] as const;
 export type StageKey = (typeof STAGE_KEYS)[number];
 
-/** Forms of ice by floe size (WMO-No. 259), plus fast ice and icebergs as the egg code has them. */
+/**
+ * Forms of ice by floe size (WMO-No. 259), plus fast ice, icebergs and growlers/floebergs as the
+ * egg code has them (one egg-code symbol, two SIGRID-3 codes: kept apart).
+ */
 export const FLOE_SIZE_KEYS = [
   'pancake', 'brash', 'small-ice-cake', 'ice-cake',
   'small-floe', 'medium-floe', 'big-floe', 'vast-floe', 'giant-floe',
-  'fast-ice', 'icebergs', 'undetermined',
+  'fast-ice', 'icebergs', 'growlers-floebergs', 'undetermined',
 ] as const;
 export type FloeSizeKey = (typeof FLOE_SIZE_KEYS)[number];
 
-/** Snow on the ice: our own plain-language kinds for a bridge observer. */
-export const SNOW_KINDS = [
-  'none', 'fresh-loose', 'wind-packed', 'drifted', 'wet', 'icy-crust', 'patchy',
-] as const;
-export type SnowKind = (typeof SNOW_KINDS)[number];
+/**
+ * How much of an ice type's surface snow covers (our own three steps: none, partial, complete).
+ */
+export const SNOW_COVERS = ['none', 'partial', 'complete'] as const;
+export type SnowCoverKey = (typeof SNOW_COVERS)[number];
+
+/**
+ * Liquid-water content of the snow: the five wetness classes of the International
+ * Classification for Seasonal Snow on the Ground (Fierz et al. 2009, UNESCO-IHP / IACS,
+ * IHP-VII Technical Documents in Hydrology No. 83, table 3.3), judged by eye and by hand.
+ */
+export const SNOW_WETNESS_CLASSES = ['dry', 'moist', 'wet', 'very-wet', 'soaked'] as const;
+export type SnowWetness = (typeof SNOW_WETNESS_CLASSES)[number];
+
+/** Ice types are named a, b, c as the egg code's columns are (index 0 is "a", the thickest). */
+export const ICE_TYPE_LETTERS = ['a', 'b', 'c'] as const;
+export type IceTypeLetter = (typeof ICE_TYPE_LETTERS)[number];
+/** One entry per ice type that has one, keyed by the ice type's letter. */
+export type PerIceType<T> = Partial<Record<IceTypeLetter, T>>;
 
 /** Open-water features (WMO-No. 259 terms). */
 export const OPEN_WATER_KINDS = [
@@ -85,25 +102,49 @@ export interface Cruise {
   displayTimeZone: string;
   /** Implied-speed limit for the sequence check, in knots. */
   maxSpeedKn: number;
+  /**
+   * When the cruise ends (or ended), UTC. From then on the watch calls for no observation and
+   * counts no missed hour. Optional: an open cruise has none. A local setting of the watch: it
+   * is not part of the exchange format.
+   */
+  endTime?: IsoUtc;
   createdAt: IsoUtc;
   updatedAt: IsoUtc;
 }
 
-/** One ice type of the observation: a column of the egg code. */
+/**
+ * One ice type of the observation: a column of the egg code, its fields in the egg code's order
+ * (WMO-No. 259: concentration, stage of development, form), then the observed thickness.
+ */
 export interface IceCategory {
   partialConcentration: Tenths;
   stage: StageKey;
-  /** Typical level-ice thickness of this category, in centimetres. */
-  thicknessCm?: number;
   floeSize?: FloeSizeKey;
-  /** Share of this category's area that is ridged, in tenths (0..10). */
+  /** Typical level-ice thickness of this ice type, in centimetres. */
+  thicknessCm?: number;
+}
+
+/** Deformation of one ice type: a group of its own, beside the ice type it describes. */
+export interface Deformation {
+  /** Share of this ice type's area that is ridged, in tenths (0..10). */
   ridgedTenths?: number;
-  /** Share of this category's area that is rafted, in tenths (0..10). */
+  /** Share of this ice type's area that is rafted, in tenths (0..10). */
   raftedTenths?: number;
   /** Typical ridge sail height above the waterline, in metres. */
   sailHeightM?: number;
-  snowKind?: SnowKind;
-  snowDepthCm?: number;
+}
+
+/** Snow on one ice type: a group of its own. Every member is optional; a blank one was not judged. */
+export interface SnowCover {
+  cover?: SnowCoverKey;
+  /** Liquid-water class (Fierz et al. 2009). */
+  wetness?: SnowWetness;
+  /** A crust (wind or melt-freeze) was seen on the snow. */
+  crust?: boolean;
+  /** Drifts (dunes, sastrugi) were seen. */
+  drifts?: boolean;
+  /** Typical snow depth, in centimetres. */
+  depthCm?: number;
 }
 
 export interface OpenWater {
@@ -158,12 +199,16 @@ export interface Observation {
   observerId: string;
   /** Total concentration in tenths; null only while not yet judged (e.g. in darkness). */
   totalConcentration: Tenths | null;
-  /** Up to three ice categories, thickest first (index 0 is the egg code's "a"). */
+  /** Up to three ice types, thickest first (index 0 is the egg code's "a"). */
   categories: IceCategory[];
   /** Stage of a trace (< 1/10) of ice thicker than the first category: the egg code's So. */
   traceStage?: StageKey;
   /** Stage of any remaining thinner ice: the egg code's Sd. */
   remainingStage?: StageKey;
+  /** Ridged and rafted shares and sail height, per ice type (key `a` describes `categories[0]`). */
+  deformation?: PerIceType<Deformation>;
+  /** Snow per ice type (key `a` describes `categories[0]`). */
+  snow?: PerIceType<SnowCover>;
   openWater?: OpenWater;
   meltPonds?: MeltPonds;
   icebergs?: Icebergs;

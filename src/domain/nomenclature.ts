@@ -6,7 +6,7 @@
 // code symbols as WMO-No. 259 and the ice chart standards give them; SIGRID-3 (WMO/TD-No. 1214)
 // for the interchange codes. Snow kinds are our own plain-language names.
 
-import type { FloeSizeKey, MeltPonds, OpenWaterKind, PositionSource, SnowKind, StageKey, Tenths } from './model.ts';
+import type { FloeSizeKey, MeltPonds, OpenWaterKind, PositionSource, SnowCoverKey, SnowWetness, StageKey, Tenths } from './model.ts';
 
 /** Where a stage sits in the "thickest first" order of the egg code (see `ordering.ts`). */
 export interface StageRank {
@@ -106,7 +106,10 @@ export const FLOE_SIZES: Readonly<Record<FloeSizeKey, FloeSizeInfo>> = {
   'vast-floe': { key: 'vast-floe', label: 'Vast floe', minM: 2000, maxM: 10000, eggCode: '6', sigrid3: '06' },
   'giant-floe': { key: 'giant-floe', label: 'Giant floe', minM: 10000, maxM: null, eggCode: '7', sigrid3: '07' },
   'fast-ice': { key: 'fast-ice', label: 'Fast ice', minM: null, maxM: null, eggCode: '8', sigrid3: '08' },
-  icebergs: { key: 'icebergs', label: 'Icebergs, growlers or floebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '10' },
+  // The egg code has one form symbol (9) for ice of this kind; SIGRID-3 (WMO/TD-No. 1214) tells
+  // icebergs (10) from growlers and floebergs (09), so the observer chooses which.
+  icebergs: { key: 'icebergs', label: 'Icebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '10' },
+  'growlers-floebergs': { key: 'growlers-floebergs', label: 'Growlers or floebergs', minM: null, maxM: null, eggCode: '9', sigrid3: '09' },
   undetermined: { key: 'undetermined', label: 'Undetermined or unknown', minM: null, maxM: null, eggCode: 'X', sigrid3: '99' },
 };
 
@@ -195,15 +198,35 @@ export const DEFORMATION_LABELS: Readonly<Record<DeformationKind, string>> = {
   hummocked: 'Hummocked ice',
 };
 
-/** Snow on the ice: our own plain-language labels (WMO-No. 259 has no snow-type scale). */
-export const SNOW_LABELS: Readonly<Record<SnowKind, string>> = {
+/** How much of an ice type snow covers: our own three steps (WMO-No. 259 has no snow scale). */
+export const SNOW_COVER_LABELS: Readonly<Record<SnowCoverKey, string>> = {
   none: 'No snow',
-  'fresh-loose': 'Fresh, loose snow',
-  'wind-packed': 'Wind-packed snow',
-  drifted: 'Drifted snow (dunes, sastrugi)',
-  wet: 'Wet snow',
-  'icy-crust': 'Icy crust',
-  patchy: 'Patchy snow',
+  partial: 'Partly snow-covered',
+  complete: 'Snow-covered throughout',
+};
+
+export interface SnowWetnessInfo {
+  label: string;
+  /** The class's one-letter code in the classification. */
+  code: string;
+  /** Liquid water content by volume, per cent: lower and upper bound (null: open-ended). */
+  lwcMinPercent: number;
+  lwcMaxPercent: number | null;
+  /** How it is told in the field, by eye and by hand. */
+  test: string;
+}
+
+/**
+ * Wetness (liquid-water content) classes of the International Classification for Seasonal Snow
+ * on the Ground (Fierz et al. 2009, UNESCO-IHP / IACS, IHP-VII Technical Documents in Hydrology
+ * No. 83), with its codes, volume ranges and field tests, in our words.
+ */
+export const SNOW_WETNESS: Readonly<Record<SnowWetness, SnowWetnessInfo>> = {
+  dry: { label: 'Dry', code: 'D', lwcMinPercent: 0, lwcMaxPercent: 0, test: 'grains hardly stick together when pressed into a ball' },
+  moist: { label: 'Moist', code: 'M', lwcMinPercent: 0, lwcMaxPercent: 3, test: 'sticks together when lightly pressed; no water to be seen' },
+  wet: { label: 'Wet', code: 'W', lwcMinPercent: 3, lwcMaxPercent: 8, test: 'water seen between grains under a lens, none pressed out by squeezing' },
+  'very-wet': { label: 'Very wet', code: 'V', lwcMinPercent: 8, lwcMaxPercent: 15, test: 'water runs out when squeezed moderately; air still in the pores' },
+  soaked: { label: 'Soaked', code: 'S', lwcMinPercent: 15, lwcMaxPercent: null, test: 'flooded with water, little air left' },
 };
 
 /** Open-water features (WMO-No. 259 terms). */

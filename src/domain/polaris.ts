@@ -82,6 +82,32 @@ export function isVesselIceClass(s: string): s is VesselIceClass {
   return (VESSEL_ICE_CLASSES as readonly string[]).includes(s);
 }
 
+/** Letters and digits only, lower case: "IA Super", "ia-super" and "IASUPER" compare equal. */
+const classSpelling = (s: string): string => s.toLowerCase().replace(/[^a-z0-9]/g, '');
+
+/**
+ * Every accepted spelling of each class: our key, the circular's label (Table 1.3 writes "PC 5",
+ * "IA Super", "Not ice-strengthened") and the Finnish-Swedish rules' own "1A Super", "1A", "1B",
+ * "1C" (from memory of those rules).
+ */
+const CLASS_SPELLINGS: ReadonlyMap<string, VesselIceClass> = (() => {
+  const m = new Map<string, VesselIceClass>();
+  for (const c of VESSEL_ICE_CLASSES) {
+    m.set(classSpelling(c), c);
+    m.set(classSpelling(VESSEL_ICE_CLASS_LABELS[c]), c);
+    if (c.startsWith('I')) m.set(classSpelling(`1${c.slice(1)}`), c);
+  }
+  m.set('notstrengthened', 'none');
+  return m;
+})();
+
+/** A vessel ice class as people write it, any case, spaces or hyphens ("pc 5", "IA Super"). */
+export function parseVesselIceClass(text: string): Result<VesselIceClass> {
+  const found = CLASS_SPELLINGS.get(classSpelling(text));
+  if (found) return ok(found);
+  return err(`unknown ice class "${text}" (use one of ${VESSEL_ICE_CLASSES.map((c) => VESSEL_ICE_CLASS_LABELS[c]).join(', ')}; case, spaces and hyphens do not matter)`);
+}
+
 export function isPolarisIceType(s: string): s is PolarisIceType {
   return (POLARIS_ICE_TYPES as readonly string[]).includes(s);
 }
@@ -260,9 +286,11 @@ export function polarisIceType(stage: StageKey, thicknessCm?: number): IceTypeMa
 export type PolarisObservationOptions = RivOptions;
 
 /**
- * POLARIS for an observation. Shares: a single category takes the total concentration; with
- * several, any part of the total the partial concentrations leave unassigned goes to the remaining
- * stage (Sd) if recorded, else to the most severe category present (noted). A trace (So) is less
+ * POLARIS for an observation. Shares: a single category with no remaining stage (Sd) takes the
+ * total concentration (the egg code's blank Ca). Otherwise each category takes its partial
+ * concentration and any part of the total they leave unassigned goes to the remaining stage (Sd)
+ * if recorded, else to the most severe category present (noted): with one category and an Sd
+ * there are two ice types, and the share not covered by Ca belongs to Sd. A trace (So) is less
  * than 1/10 and adds nothing. Needs a total concentration or at least one category.
  */
 export function polarisForObservation(
@@ -278,12 +306,15 @@ export function polarisForObservation(
   for (const { m } of mapped) if (m.note) notes.push(m.note);
 
   const shares: RegimeShare[] = [];
-  if (mapped.length === 1 && mapped[0]) {
+  if (mapped.length === 1 && mapped[0] && !obs.remainingStage) {
     shares.push({ iceType: mapped[0].m.iceType, tenths: total ?? mapped[0].c.partialConcentration });
   } else {
     for (const { c, m } of mapped) shares.push({ iceType: m.iceType, tenths: c.partialConcentration });
     const assigned = shares.reduce((a, s) => a + s.tenths, 0);
     const unassigned = total === null ? 0 : total - assigned;
+    if (unassigned < 0 && total !== null) {
+      notes.push(`The partial concentrations add up to ${round(assigned)}/10, more than the total ${total}/10: the partial concentrations are used.`);
+    }
     if (unassigned > 0) {
       if (obs.remainingStage) {
         const m = polarisIceType(obs.remainingStage);

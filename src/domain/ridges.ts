@@ -16,7 +16,8 @@
 // Voids in the ridge rubble are not subtracted unless a porosity is given, so by default h_r is
 // an upper estimate.
 
-import type { IceCategory, Observation, StageKey } from './model.ts';
+import { deformationOf } from './iceTypes.ts';
+import type { Deformation, IceCategory, Observation, StageKey } from './model.ts';
 import { STAGES } from './nomenclature.ts';
 
 export type RidgeKind = 'first-year' | 'multi-year';
@@ -71,7 +72,7 @@ export interface EquivalentThickness {
  * Equivalent thickness of one category including its ridged and rafted shares (formula at the
  * top of this file). Null when the category has no level-ice thickness.
  */
-export function equivalentThickness(c: IceCategory, opts: { porosity?: number } = {}): EquivalentThickness | null {
+export function equivalentThickness(c: IceCategory & Deformation, opts: { porosity?: number } = {}): EquivalentThickness | null {
   if (c.thicknessCm === undefined || !Number.isFinite(c.thicknessCm) || c.thicknessCm < 0) return null;
   const h = c.thicknessCm;
   const kind = ridgeKindForStage(c.stage);
@@ -112,11 +113,12 @@ export interface MeanThickness {
 }
 
 /** Area-weighted equivalent thickness of an observation; null when no category has a thickness. */
-export function meanEquivalentThickness(obs: Pick<Observation, 'categories'>): MeanThickness | null {
+export function meanEquivalentThickness(obs: Pick<Observation, 'categories' | 'deformation'>): MeanThickness | null {
   let weighted = 0;
   let tenths = 0;
-  for (const c of obs.categories) {
-    const eq = equivalentThickness(c);
+  for (let i = 0; i < obs.categories.length; i++) {
+    const c = obs.categories[i] as IceCategory;
+    const eq = equivalentThickness({ ...c, ...deformationOf(obs, i) });
     if (!eq || !(c.partialConcentration > 0)) continue;
     weighted += eq.equivalentCm * c.partialConcentration;
     tenths += c.partialConcentration;

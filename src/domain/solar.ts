@@ -16,7 +16,11 @@ export interface SolarPosition {
   apparentElevationDeg: number;
   /** Azimuth, degrees clockwise from true north. */
   azimuthDeg: number;
+  /** Apparent declination and right ascension of the sun, degrees (RA 0..360). */
   declinationDeg: number;
+  rightAscensionDeg: number;
+  /** Apparent ecliptic longitude of the sun, degrees 0..360. */
+  apparentLongitudeDeg: number;
   equationOfTimeMin: number;
 }
 
@@ -51,6 +55,7 @@ export function solarPosition(time: IsoUtc | number | Date, lat: number, lon: nu
   const meanObliq = 23 + (26 + (21.448 - t * (46.815 + t * (0.00059 - t * 0.001813))) / 60) / 60;
   const obliq = meanObliq + 0.00256 * cos(omega);
   const decl = Math.asin(sin(obliq) * sin(appLong)) / RAD;
+  const ra = ((Math.atan2(cos(obliq) * sin(appLong), cos(appLong)) / RAD) % 360 + 360) % 360;
   const y = tan(obliq / 2) ** 2;
   const eot = (4 / RAD) * (y * sin(2 * l0) - 2 * ecc * sin(m) + 4 * ecc * y * sin(m) * cos(2 * l0)
     - 0.5 * y * y * sin(4 * l0) - 1.25 * ecc * ecc * sin(2 * m));
@@ -74,6 +79,8 @@ export function solarPosition(time: IsoUtc | number | Date, lat: number, lon: nu
     apparentElevationDeg: elevationDeg + refractionDeg(elevationDeg),
     azimuthDeg,
     declinationDeg: decl,
+    rightAscensionDeg: ra,
+    apparentLongitudeDeg: ((appLong % 360) + 360) % 360,
     equationOfTimeMin: eot,
   };
 }
@@ -86,10 +93,11 @@ export function solarElevationDeg(time: IsoUtc | number | Date, lat: number, lon
 export type DisplayTheme = 'day' | 'night';
 
 /**
- * The night display comes on at the end of civil twilight, the sun 6° below the horizon, when the
- * horizon and outlines stop being clearly visible without light (common practice for civil
- * twilight). A half-degree hysteresis either side keeps the display from flickering when the sun
- * skims the threshold, as it does for hours in polar twilight.
+ * The night display comes on at the end of civil twilight: the geometric centre of the sun 6°
+ * below the horizon, refraction not counted (the definition the NOAA solar calculator uses; the
+ * switch to a dark display at that moment is our choice). A half-degree hysteresis either side
+ * keeps the display from flickering when the sun skims the threshold, as it does for hours in
+ * polar twilight.
  */
 export const NIGHT_BELOW_DEG = -6;
 export const THEME_HYSTERESIS_DEG = 0.5;
@@ -100,7 +108,7 @@ export function themeForSunElevation(elevationDeg: number, current?: DisplayThem
   return elevationDeg >= NIGHT_BELOW_DEG ? 'day' : 'night';
 }
 
-/** The display theme for a time and place (apparent elevation). */
+/** The display theme for a time and place (geometric elevation of the sun's centre). */
 export function themeAt(time: IsoUtc | number | Date, lat: number, lon: number, current?: DisplayTheme): DisplayTheme {
-  return themeForSunElevation(solarPosition(time, lat, lon).apparentElevationDeg, current);
+  return themeForSunElevation(solarPosition(time, lat, lon).elevationDeg, current);
 }

@@ -4,13 +4,14 @@
 //
 // Slots are multiples of the interval counted from 1970-01-01T00:00Z: with the usual 60 minutes
 // (or any interval that divides a day) they fall on the full hour, as hourly bridge
-// observations are customarily made (common practice, e.g. the ASPeCt protocol, Worby and
-// Allison 1999). An observation counts for the slot nearest to its time, so one made at 12:25
+// observations are customarily made (common practice; the terms observed are those of
+// WMO-No. 259, which sets no observing interval). An observation counts for the slot nearest to its time, so one made at 12:25
 // or 11:40 covers the 12:00 slot. A slot is missed when its window (half an interval either
 // side) has closed with no observation in it.
 import type { IsoUtc } from './model';
 
-export type WatchState = 'waiting' | 'due' | 'overdue';
+/** `ended`: the cruise's end time has passed; nothing is due and nothing more is missed. */
+export type WatchState = 'waiting' | 'due' | 'overdue' | 'ended';
 
 export interface WatchOptions {
   intervalMinutes: number;
@@ -20,6 +21,8 @@ export interface WatchOptions {
   graceMinutes?: number;
   /** Missed slots are looked for this far back from now (default 24 hours). */
   lookbackHours?: number;
+  /** The cruise's end (Cruise.endTime): from then on the watch is off. */
+  endTime?: IsoUtc;
 }
 
 export interface WatchStatus {
@@ -105,8 +108,11 @@ export function watchStatus(now: Date | number, times: readonly IsoUtc[], opts: 
   let next = (Math.floor((nowMs - step / 2) / step) + 1) * step;
   while (covered.has(next)) next += step;
 
+  const endMs = opts.endTime === undefined ? Infinity : Date.parse(opts.endTime);
   const msToDue = next - nowMs;
-  const state: WatchState = nowMs < next - dueBefore ? 'waiting' : nowMs <= next + grace ? 'due' : 'overdue';
+  const state: WatchState = nowMs >= endMs ? 'ended' : nowMs < next - dueBefore ? 'waiting' : nowMs <= next + grace ? 'due' : 'overdue';
+  // Slots whose window closes after the end were never owed.
+  const until = Math.min(nowMs, endMs);
 
   const past = ms.filter((t) => t <= nowMs);
   const first = past.length > 0 ? Math.min(...past) : null;
@@ -116,7 +122,7 @@ export function watchStatus(now: Date | number, times: readonly IsoUtc[], opts: 
   const missed =
     first === null || last === null || last < nowMs - lookback
       ? []
-      : missedSlotsBetween(times, opts.intervalMinutes, Math.max(first, nowMs - lookback), nowMs).map(toIsoUtc);
+      : missedSlotsBetween(times, opts.intervalMinutes, Math.max(first, nowMs - lookback), until).map(toIsoUtc);
 
   return {
     nextDue: toIsoUtc(next),
@@ -158,4 +164,33 @@ export function formatCountdown(msToDue: number): string {
   const s = totalS % 60;
   const text = h > 0 ? `${h} h ${String(m).padStart(2, '0')} min` : `${m} min ${String(s).padStart(2, '0')} s`;
   return msToDue >= 0 ? `in ${text}` : `${text} ago`;
+}
+
+/**
+ * A run of missed slots in words, UTC: "19:00 UTC on 2026-12-01", "19:00-21:00 UTC on
+ * 2026-12-01 (3 observations)", and across midnight both dates: "19:00 on 2026-12-01 to 17:00 on
+ * 2026-12-02 UTC (23 observations)".
+ */
+export function missedRunText(run: MissedRun): string {
+  const [fromDay, toDay] = [run.from.slice(0, 10), run.to.slice(0, 10)];
+  const [fromHm, toHm] = [run.from.slice(11, 16), run.to.slice(11, 16)];
+  if (run.count === 1) return `${fromHm} UTC on ${fromDay}`;
+  if (fromDay === toDay) return `${fromHm}–${toHm} UTC on ${fromDay} (${run.count} observations)`;
+  return `${fromHm} on ${fromDay} to ${toHm} on ${toDay} UTC (${run.count} observations)`;
+}
+
+/**
+ * A cruise end typed as UTC, "YYYY-MM-DD HH:MM" (a T and a trailing Z are accepted too), read
+ * to ISO 8601; the message names the value when it is not a real time.
+ */
+export function readUtcMinute(text: string): { ok: true; value: IsoUtc } | { ok: false; error: string } {
+  const m = /^(\d{4})-(\d{2})-(\d{2})[ T](\d{2}):(\d{2})(?::00)?Z?$/.exec(text.trim());
+  const bad = { ok: false as const, error: `"${text}" is not a UTC time written as YYYY-MM-DD HH:MM` };
+  if (!m) return bad;
+  const [y, mo, d, h, mi] = m.slice(1).map(Number) as [number, number, number, number, number];
+  const ms = Date.UTC(y, mo - 1, d, h, mi);
+  const iso = toIsoUtc(ms);
+  // Date.UTC rolls 2026-02-30 over into March: a time that does not read back is not real.
+  if (iso.slice(0, 16) !== `${m[1]}-${m[2]}-${m[3]}T${m[4]}:${m[5]}`) return bad;
+  return { ok: true, value: iso };
 }

@@ -3,12 +3,12 @@
 // compressed. Reading is in archiveRead.ts.
 import { strToU8, zipSync, type Zippable } from 'fflate';
 import { exportLogJson, photoArchivePath, type EncodeOptions } from './encode';
-import type { LogBundle, PhotoBytes } from './types';
+import { CURRENT_VERSION, SCHEMA_V2_PATH, type LogBundle, type PhotoBytes } from './types';
 
 export const ARCHIVE_LOG_NAME = 'floe-ledger-log.json';
 
 const README = `Floe Ledger log archive
-${ARCHIVE_LOG_NAME}  the log (format "floe-ledger-log", version 1; schema: format/floe-ledger-log-1.schema.json
+${ARCHIVE_LOG_NAME}  the log (format "floe-ledger-log", version ${CURRENT_VERSION}; schema: ${SCHEMA_V2_PATH}
                       served with the app, documented in docs/format.md)
 photos/               the images referenced by the log's "photos" list (archivePath)
 `;

@@ -1,14 +1,16 @@
 // CSV for spreadsheets and R: RFC 4180 (comma, CRLF, fields with comma, quote or line break
 // quoted, quotes doubled), a header row of FLAT_COLUMNS, one row per observation.
 // Spreadsheets run a text cell that starts with = + - @ (or tab / carriage return) as a formula
-// (OWASP "CSV injection"); such text cells get a leading apostrophe. Numbers are never altered,
-// so negative temperatures and western longitudes stay numbers.
+// (OWASP "CSV injection"); such text cells get a leading apostrophe. Some spreadsheets also skip
+// leading spaces and line breaks before the sign, and read the full-width forms (＝ ＋ － ＠)
+// as the ASCII ones, so those count too. Numbers are never altered, so negative temperatures and
+// western longitudes stay numbers.
 import type { Cell } from './flat';
 import { exportedObservations, flatColumns, flatContext, flatRow, type FlatOptions } from './flat';
 import type { LogBundle } from './types';
 
 const NEEDS_QUOTES = /[",\r\n]/;
-const FORMULA_START = /^[=+\-@\t\r]/;
+const FORMULA_START = /^[\t\r\n]|^[\s\u00a0\u3000]*[=+\-@\uff1d\uff0b\uff0d\uff20]/;
 
 export function csvCell(c: Cell): string {
   if (c === null) return '';

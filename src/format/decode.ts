@@ -1,10 +1,11 @@
-// File -> model: a schema-valid version-1 log becomes a LogBundle, after the checks a schema
+// File -> model: a schema-valid version-2 log becomes a LogBundle, after the checks a schema
 // cannot express (codes agree with terms, references resolve, revisions are consistent, dates
 // exist on the calendar). Each problem names its JSON path.
 import type { IceCategory, Observation, TrackPoint } from '../domain/model';
-import { concentrationCode, floeSizeCode, stageCode } from './codes';
+import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
+import { LIMITS } from './limits';
 import type { Problem } from './problems';
-import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV1, PhotoMeta } from './types';
+import type { FileCategory, FileObservation, FileObservationVersion, LogBundle, LogFileV2, PhotoMeta } from './types';
 
 /** True when an ISO 8601 UTC string that matched the schema's pattern names a real instant. */
 export function isRealUtcTime(s: string): boolean {
@@ -14,27 +15,37 @@ export function isRealUtcTime(s: string): boolean {
   return new Date(t).toISOString().slice(0, 10) === s.slice(0, 10);
 }
 
+/** Pushes a problem when `value` is no date on the calendar or lies outside the years a log may hold. */
+function checkTime(value: string, path: string, out: Problem[]) {
+  if (!isRealUtcTime(value)) out.push({ path, message: `"${value}" is not a date on the calendar` });
+  else {
+    const year = Number(value.slice(0, 4));
+    if (year < LIMITS.earliestYear || year > LIMITS.latestYear) out.push({ path, message: `"${value}" lies outside the years ${LIMITS.earliestYear} to ${LIMITS.latestYear} that a log may hold` });
+  }
+}
+
 function decodeCategory(c: FileCategory): IceCategory {
   const { partialConcentrationSigrid3: _p, stageSigrid3: _s, floeSizeSigrid3: _f, ...rest } = c;
   return rest;
 }
 
+const DROPPED_KEYS = new Set(['totalConcentrationSigrid3', 'traceStageSigrid3', 'remainingStageSigrid3', 'history', 'conflicts']);
+
+/** The model object of one version; keys keep the file's order, so an export writes them back alike. */
 export function decodeVersion(v: FileObservationVersion | FileObservation): Observation {
-  const {
-    totalConcentrationSigrid3: _t,
-    traceStageSigrid3: _ts,
-    remainingStageSigrid3: _rs,
-    categories,
-    history: _h,
-    conflicts: _c,
-    ...rest
-  } = v as FileObservation;
-  return { ...rest, categories: categories.map(decodeCategory) };
+  const out: Record<string, unknown> = {};
+  for (const [k, x] of Object.entries(v)) {
+    if (DROPPED_KEYS.has(k)) continue;
+    out[k] = k === 'categories' ? (x as FileCategory[]).map(decodeCategory) : x;
+  }
+  return out as unknown as Observation;
 }
 
 function checkCodes(v: FileObservationVersion, path: string, out: Problem[]) {
-  const want = concentrationCode(v.totalConcentration);
-  if (v.totalConcentrationSigrid3 !== want) {
+  const want = totalConcentrationCode(v);
+  // Files written before 0/10 with ice noted was coded `01` carry `00` there: still readable.
+  const legacyTrace = want === '01' && v.totalConcentrationSigrid3 === concentrationCode(0);
+  if (v.totalConcentrationSigrid3 !== want && !legacyTrace) {
     out.push({ path: `${path}.totalConcentrationSigrid3`, message: `is "${v.totalConcentrationSigrid3}" but the total concentration ${v.totalConcentration ?? 'null'} has code "${want}"` });
   }
   v.categories.forEach((c, i) => {
@@ -62,18 +73,16 @@ function checkCodes(v: FileObservationVersion, path: string, out: Problem[]) {
 }
 
 function checkTimes(v: FileObservationVersion, path: string, out: Problem[]) {
-  if (!isRealUtcTime(v.time)) out.push({ path: `${path}.time`, message: `"${v.time}" is not a date on the calendar` });
-  if (!isRealUtcTime(v.savedAt)) out.push({ path: `${path}.savedAt`, message: `"${v.savedAt}" is not a date on the calendar` });
-  if (v.position?.fixTime !== undefined && !isRealUtcTime(v.position.fixTime)) {
-    out.push({ path: `${path}.position.fixTime`, message: `"${v.position.fixTime}" is not a date on the calendar` });
-  }
+  checkTime(v.time, `${path}.time`, out);
+  checkTime(v.savedAt, `${path}.savedAt`, out);
+  if (v.position?.fixTime !== undefined) checkTime(v.position.fixTime, `${path}.position.fixTime`, out);
 }
 
 /** Checks a schema-valid file and turns it into model objects. Problems go to `out`. */
-export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
+export function decodeLog(file: LogFileV2, out: Problem[], archivePaths?: Map<string, string>): LogBundle {
   const cruiseId = file.cruise.id;
   for (const [k, v] of [['exportedAt', file.exportedAt], ['cruise.createdAt', file.cruise.createdAt], ['cruise.updatedAt', file.cruise.updatedAt]] as const) {
-    if (!isRealUtcTime(v)) out.push({ path: `$.${k}`, message: `"${v}" is not a date on the calendar` });
+    checkTime(v, `$.${k}`, out);
   }
   const observerIds = new Set<string>();
   file.observers.forEach((o, i) => {
@@ -117,9 +126,18 @@ export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<st
 
   const track: TrackPoint[] = new Array<TrackPoint>(file.track.points.length);
   const points = file.track.points;
+  // Two points at one time with other positions: the file would mean two tracks. Written files
+  // are in time order, so neighbours are compared; an unordered file gets a map of times.
+  let byTime: Map<string, number> | null = null;
   for (let i = 0; i < points.length; i++) {
     const r = points[i] as (typeof points)[number];
-    if (!isRealUtcTime(r[0])) out.push({ path: `$.track.points[${i}][0]`, message: `"${r[0]}" is not a date on the calendar` });
+    checkTime(r[0], `$.track.points[${i}][0]`, out);
+    const prev = i > 0 ? (points[i - 1] as (typeof points)[number]) : null;
+    if (prev && !byTime && prev[0] > r[0]) byTime = new Map(points.slice(0, i).map((q, j) => [q[0], j]));
+    const j = byTime ? byTime.get(r[0]) : prev && prev[0] === r[0] ? i - 1 : undefined;
+    const other = j === undefined ? undefined : points[j];
+    if (other && (other[1] !== r[1] || other[2] !== r[2])) out.push({ path: `$.track.points[${i}]`, message: `is at ${r[0]}, the time of row ${j}, with another position (${r[1]}, ${r[2]} against ${other[1]}, ${other[2]})` });
+    if (byTime && !byTime.has(r[0])) byTime.set(r[0], i);
     const p: TrackPoint = { cruiseId, time: r[0], lat: r[1], lon: r[2], source: r[3] };
     if (r[4] !== null) p.sogKn = r[4];
     if (r[5] !== null) p.cogDeg = r[5];
@@ -132,8 +150,8 @@ export function decodeLog(file: LogFileV1, out: Problem[], archivePaths?: Map<st
     if (photoIds.has(fp.id)) out.push({ path: `$.photos[${i}].id`, message: `photo id "${fp.id}" appears twice` });
     photoIds.add(fp.id);
     if (!seen.has(fp.observationId)) out.push({ path: `$.photos[${i}].observationId`, message: `no observation "${fp.observationId}" in this file` });
-    if (fp.addedAt !== undefined && !isRealUtcTime(fp.addedAt)) out.push({ path: `$.photos[${i}].addedAt`, message: `"${fp.addedAt}" is not a date on the calendar` });
-    if (fp.takenAt !== undefined && !isRealUtcTime(fp.takenAt)) out.push({ path: `$.photos[${i}].takenAt`, message: `"${fp.takenAt}" is not a date on the calendar` });
+    if (fp.addedAt !== undefined) checkTime(fp.addedAt, `$.photos[${i}].addedAt`, out);
+    if (fp.takenAt !== undefined) checkTime(fp.takenAt, `$.photos[${i}].takenAt`, out);
     const { archivePath, ...meta } = fp;
     archivePaths?.set(fp.id, archivePath);
     return meta;

@@ -1,18 +1,19 @@
-// Model -> file: a LogBundle becomes a version-1 log file (SIGRID-3 codes added beside the WMO
+// Model -> file: a LogBundle becomes a version-2 log file (SIGRID-3 codes added beside the WMO
 // terms, revisions grouped under their observation, the track as rows).
 import type { FloeSizeKey, IceCategory, Observation, StageKey, TrackPoint } from '../domain/model';
-import { concentrationCode, floeSizeCode, stageCode } from './codes';
+import { sigrid3Concentration } from '../domain/nomenclature';
+import { concentrationCode, floeSizeCode, stageCode, totalConcentrationCode } from './codes';
 import {
   FORMAT_NAME,
-  SCHEMA_V1_PATH,
+  SCHEMA_V2_PATH,
   TRACK_COLUMNS,
-  UNITS_V1,
+  UNITS_V2,
   type FileCategory,
   type FileObservation,
   type FileObservationVersion,
   type FilePhoto,
   type LogBundle,
-  type LogFileV1,
+  type LogFileV2,
   type PhotoMeta,
   type TrackRow,
 } from './types';
@@ -37,7 +38,7 @@ export function encodeCategory(c: IceCategory): FileCategory {
 export function encodeVersion(o: Observation): FileObservationVersion {
   const out: FileObservationVersion = {
     ...o,
-    totalConcentrationSigrid3: concentrationCode(o.totalConcentration),
+    totalConcentrationSigrid3: totalConcentrationCode(o),
     categories: o.categories.map(encodeCategory),
   };
   if (o.traceStage !== undefined) out.traceStageSigrid3 = stageCode(o.traceStage);
@@ -67,7 +68,7 @@ function groupById(versions: Observation[]): Map<string, Observation[]> {
 
 const byTime = (a: { time: string }, b: { time: string }) => (a.time < b.time ? -1 : a.time > b.time ? 1 : 0);
 
-export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV1 {
+export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV2 {
   const { cruise } = bundle;
   const history = groupById(bundle.history);
   const conflicts = groupById(bundle.conflicts);
@@ -83,12 +84,12 @@ export function encodeLog(bundle: LogBundle, opts: EncodeOptions = {}): LogFileV
   const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
   const photos: FilePhoto[] = bundle.photos.map((p) => ({ ...p, archivePath: photoArchivePath(p) }));
   return {
-    $schema: SCHEMA_V1_PATH,
+    $schema: SCHEMA_V2_PATH,
     format: FORMAT_NAME,
-    formatVersion: 1,
+    formatVersion: 2,
     exportedAt: opts.exportedAt ?? new Date().toISOString(),
     generator: { ...GENERATOR },
-    units: { ...UNITS_V1 },
+    units: { ...UNITS_V2 },
     cruise: {
       id: cruise.id,
       name: cruise.name,
@@ -155,7 +156,7 @@ const trackLines = (rowAt: (i: number) => TrackRow) => (start: number, end: numb
 };
 
 function writeParts(
-  file: LogFileV1,
+  file: LogFileV2,
   observationCount: number,
   observationLines: (start: number, end: number) => string,
   trackCount: number,
@@ -177,7 +178,7 @@ function writeParts(
  * stream takes the parts as they are. One observation and one track row per line keeps the
  * file readable and makes line numbers in error messages point at a record.
  */
-export function writeLogJson(file: LogFileV1): string[] {
+export function writeLogJson(file: LogFileV2): string[] {
   const points = file.track.points;
   return writeParts(file, file.observations.length, eachLine(file.observations), points.length, (i) => points[i] as TrackRow);
 }
@@ -187,7 +188,18 @@ export function writeLogJson(file: LogFileV1): string[] {
 // always escaped), and these keys exist only where the model has them, so the replacement
 // touches exactly the coded fields. test/format/roundtrip.test.ts checks the result against
 // encodeVersion for random observations.
-const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+)|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
+// A total of 0/10 with ice noted codes as `01`, which the key alone cannot tell: markTrace puts the
+// string TRACE_ZERO (JSON `"\u0001"`, which no number field can hold) in its place first.
+const CODED_FIELD = /"(totalConcentration|partialConcentration)":(null|\d+|"\\u0001")|"(stage|traceStage|remainingStage|floeSize)":"([a-z0-9-]+)"/g;
+const TRACE_ZERO = '\u0001';
+const TRACE_ZERO_JSON = '"\\u0001"';
+
+/** The version with its total replaced by TRACE_ZERO where the total codes as `01`. */
+function markTrace(o: Observation): Observation {
+  if (o.totalConcentration !== 0 || totalConcentrationCode(o) === concentrationCode(0)) return o;
+  // The marker is a string in a number's place only on its way through JSON.stringify.
+  return { ...o, totalConcentration: TRACE_ZERO as unknown as number };
+}
 
 // Distinct matches are few (a key and one of a few dozen terms), so replacements are cached.
 const codedCache = new Map<string, string>();
@@ -195,7 +207,8 @@ const codedCache = new Map<string, string>();
 function codedReplacement(m: string, concKey?: string, concValue?: string, termKey?: string, termValue?: string): string {
   let out = codedCache.get(m);
   if (out === undefined) {
-    if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
+    if (concValue === TRACE_ZERO_JSON) out = `"${concKey}":0,"${concKey}Sigrid3":"${sigrid3Concentration(0, { trace: true })}"`;
+    else if (concKey) out = `${m},"${concKey}Sigrid3":"${concentrationCode(concValue === 'null' ? null : Number(concValue))}"`;
     else out = `${m},"${termKey}Sigrid3":"${termKey === 'floeSize' ? floeSizeCode(termValue as FloeSizeKey) : stageCode(termValue as StageKey)}"`;
     if (codedCache.size < 10_000) codedCache.set(m, out);
   }
@@ -208,7 +221,7 @@ function withCodes(json: string): string {
 
 /** One version of an observation as file JSON: the model's JSON with the codes beside the terms. */
 export function versionJson(o: Observation): string {
-  return withCodes(JSON.stringify(o));
+  return withCodes(JSON.stringify(markTrace(o)));
 }
 
 /**
@@ -230,23 +243,40 @@ export function exportLogJson(bundle: LogBundle, opts: EncodeOptions = {}): stri
   const history = groupById(bundle.history);
   const conflicts = groupById(bundle.conflicts);
   const observations = [...bundle.observations].sort((a, b) => byTime(a, b) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
-  const entry = (o: Observation): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) => {
-    const h = history.get(o.id);
-    const c = conflicts.get(o.id);
-    if (!h && !c) return o;
-    const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...o };
-    if (h) out.history = [...h].sort((a, b) => a.revision - b.revision);
-    if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1));
-    return out;
-  };
-  const observationLines = (start: number, end: number) => {
-    const items: unknown[] = [];
-    for (let i = start; i < end; i++) {
-      if (i > start) items.push(BOUNDARY);
-      items.push(entry(observations[i] as Observation));
-    }
-    return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
-  };
+  const observationLines = (start: number, end: number) => observationsJson(observations.slice(start, end), history, conflicts);
   const track = bundle.track.length > 1 && !isSortedByTime(bundle.track) ? [...bundle.track].sort(byTime) : bundle.track;
   return writeParts(file, observations.length, observationLines, track.length, (i) => encodeTrackPoint(track[i] as TrackPoint));
+}
+
+/** Earlier revisions or conflict copies by observation id. */
+export type VersionsById = Map<string, Observation[]>;
+export { groupById };
+
+/**
+ * Observations (in file order) as their file lines joined by `,\n    `, with their history and
+ * conflict copies nested and the codes beside the terms. Each call is one JSON.stringify (the
+ * engine's fast path), so a writer that streams a log calls it once per batch.
+ */
+export function observationsJson(observations: readonly Observation[], history: VersionsById, conflicts: VersionsById): string {
+  const items: unknown[] = [];
+  for (let i = 0; i < observations.length; i++) {
+    if (i > 0) items.push(BOUNDARY);
+    items.push(entryWithVersions(observations[i] as Observation, history, conflicts));
+  }
+  return withCodes(JSON.stringify(items).slice(1, -1)).replaceAll(BOUNDARY_JSON, '},\n    {');
+}
+
+function entryWithVersions(o: Observation, history: VersionsById, conflicts: VersionsById): Observation | (Observation & { history?: Observation[]; conflicts?: Observation[] }) {
+  const h = history.get(o.id);
+  const c = conflicts.get(o.id);
+  if (!h && !c) return markTrace(o);
+  const out: Observation & { history?: Observation[]; conflicts?: Observation[] } = { ...markTrace(o) };
+  if (h) out.history = [...h].sort((a, b) => a.revision - b.revision).map(markTrace);
+  if (c) out.conflicts = [...c].sort((a, b) => a.revision - b.revision || (a.savedAt < b.savedAt ? -1 : 1)).map(markTrace);
+  return out;
+}
+
+/** Track rows as their file lines joined by `,\n    `. */
+export function trackRowsJson(rows: readonly TrackRow[]): string {
+  return trackLines((i) => rows[i] as TrackRow)(0, rows.length);
 }

@@ -1,10 +1,13 @@
 // One observation as a flat record: the columns of the CSV file, the properties of a GeoJSON
-// point and the fields of an NDJSON line. One column group per ice category (a, b, c: thickest
-// first, as the egg code orders them), WMO terms with SIGRID-3 codes beside them, UTC times,
-// decimal degrees. Names carry their units so a spreadsheet or R user need not look them up.
-import type { Cruise, IceCategory, Observation } from '../domain/model';
+// point and the fields of an NDJSON line. One column group per ice type (a, b, c: thickest
+// first, as the egg code orders them, each in the egg code's order: concentration, stage, form,
+// then thickness), then a block of deformation columns for a, b, c and a block of snow columns
+// for a, b, c. WMO terms with SIGRID-3 codes beside them, UTC times, decimal degrees. Names carry
+// their units so a spreadsheet or R user need not look them up.
+import { deformationOf, snowOf } from '../domain/iceTypes';
+import { ICE_TYPE_LETTERS, type Cruise, type Deformation, type IceCategory, type Observation, type SnowCover } from '../domain/model';
+import { concentrationCode, floeSizeCode, stageCode, stageTermLabel, totalConcentrationCode, totalConcentrationTermLabel } from './codes';
 import type { Collocation } from '../domain/collocation/collocate';
-import { concentrationCode, concentrationTermLabel, floeSizeCode, stageCode, stageTermLabel } from './codes';
 import { ICEINFO_COLUMNS, iceinfoCells } from './iceinfoColumns';
 
 export type Cell = string | number | boolean | null;
@@ -15,17 +18,15 @@ const CATEGORY_FIELDS = [
   'stage',
   'stage_term',
   'stage_sigrid3',
-  'thickness_cm',
   'floe_size',
   'floe_size_sigrid3',
-  'ridged_tenths',
-  'rafted_tenths',
-  'sail_height_m',
-  'snow_kind',
-  'snow_depth_cm',
+  'thickness_cm',
 ] as const;
 
-export const CATEGORY_LETTERS = ['a', 'b', 'c'] as const;
+const DEFORMATION_FIELDS = ['ridged_tenths', 'rafted_tenths', 'sail_height_m'] as const;
+const SNOW_FIELDS = ['snow_cover', 'snow_wetness', 'snow_crust', 'snow_drifts', 'snow_depth_cm'] as const;
+
+export const CATEGORY_LETTERS = ICE_TYPE_LETTERS;
 
 export const FLAT_COLUMNS: readonly string[] = [
   'observation_id',
@@ -45,6 +46,8 @@ export const FLAT_COLUMNS: readonly string[] = [
   'trace_stage_sigrid3',
   'remaining_stage',
   'remaining_stage_sigrid3',
+  ...CATEGORY_LETTERS.flatMap((l) => DEFORMATION_FIELDS.map((f) => `${l}_${f}`)),
+  ...CATEGORY_LETTERS.flatMap((l) => SNOW_FIELDS.map((f) => `${l}_${f}`)),
   'open_water_kind',
   'open_water_width_m',
   'open_water_orientation_deg',
@@ -79,15 +82,18 @@ function categoryCells(c: IceCategory | undefined): Cell[] {
     c.stage,
     stageTermLabel(c.stage),
     stageCode(c.stage),
-    v(c.thicknessCm),
     v(c.floeSize),
     c.floeSize === undefined ? null : floeSizeCode(c.floeSize),
-    v(c.ridgedTenths),
-    v(c.raftedTenths),
-    v(c.sailHeightM),
-    v(c.snowKind),
-    v(c.snowDepthCm),
+    v(c.thicknessCm),
   ];
+}
+
+function deformationCells(d: Deformation | undefined): Cell[] {
+  return [v(d?.ridgedTenths), v(d?.raftedTenths), v(d?.sailHeightM)];
+}
+
+function snowCells(s: SnowCover | undefined): Cell[] {
+  return [v(s?.cover), v(s?.wetness), v(s?.crust), v(s?.drifts), v(s?.depthCm)];
 }
 
 export interface FlatContext {
@@ -119,8 +125,8 @@ export function flatRow(o: Observation, ctx: FlatContext): Cell[] {
     o.observerId,
     ctx.initials.get(o.observerId) ?? null,
     o.totalConcentration,
-    concentrationCode(o.totalConcentration),
-    o.totalConcentration === null ? null : concentrationTermLabel(o.totalConcentration),
+    totalConcentrationCode(o),
+    o.totalConcentration === null ? null : totalConcentrationTermLabel(o),
     ...categoryCells(o.categories[0]),
     ...categoryCells(o.categories[1]),
     ...categoryCells(o.categories[2]),
@@ -128,6 +134,12 @@ export function flatRow(o: Observation, ctx: FlatContext): Cell[] {
     o.traceStage === undefined ? null : stageCode(o.traceStage),
     v(o.remainingStage),
     o.remainingStage === undefined ? null : stageCode(o.remainingStage),
+    ...deformationCells(deformationOf(o, 0)),
+    ...deformationCells(deformationOf(o, 1)),
+    ...deformationCells(deformationOf(o, 2)),
+    ...snowCells(snowOf(o, 0)),
+    ...snowCells(snowOf(o, 1)),
+    ...snowCells(snowOf(o, 2)),
     v(o.openWater?.kind),
     v(o.openWater?.widthM),
     v(o.openWater?.orientationDeg),

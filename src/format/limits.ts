@@ -28,8 +28,13 @@ export const LIMITS = {
   maxObservers: 200,
   /** Reviewed findings kept on one observation. */
   maxReviews: 200,
+  /** Largest log entry inside an archive once unpacked, in bytes: as large as a JSON log may be. */
+  maxArchiveLogBytes: 512 * 1024 * 1024,
   /** Largest single photo inside an archive, in bytes. */
   maxPhotoBytes: 50 * 1024 * 1024,
+  /** Earliest and latest year of any time in a log: year 0000 or 9999 is a typing or clock error. */
+  earliestYear: 1900,
+  latestYear: 2199,
   /** Most entries in a zip archive. */
   maxArchiveEntries: 100_002,
   /** Total uncompressed size of a zip archive, in bytes (guards against zip bombs). */
@@ -38,3 +43,10 @@ export const LIMITS = {
 
 /** How many problems a rejected file lists one by one; the rest are counted. */
 export const MAX_LISTED_PROBLEMS = 20;
+
+/**
+ * How many schema errors a validator keeps; the rest are only counted. Without a cap a file of
+ * a million bad track rows holds millions of error objects. Baked into the generated validators
+ * (scripts/build-validators.ts): regenerate them after changing it.
+ */
+export const MAX_SCHEMA_ERRORS = 100;

@@ -4,9 +4,15 @@
 //   identical  the same revision with the same content is already stored: nothing to do;
 //   newer      a higher revision than the stored current one: it becomes current, the stored
 //              current one goes to the history;
-//   older      a lower revision that is not stored yet: kept in the history;
+//   older      a lower revision that is not stored yet, when the file shows it precedes a
+//              stored version (the file also holds a later version the store has): kept in the
+//              history;
 //   conflict   the same revision as a stored version but different content (two laptops edited
-//              the same revision): both are kept, the incoming copy is flagged for review.
+//              the same revision), or a version whose place the history does not show: a
+//              higher revision from a file that does not hold the stored current version (a
+//              deletion at revision 2 here, an edit at revision 3 made apart there), or a lower
+//              one from a file that holds none of the stored later versions. Both are kept, the
+//              incoming copy is flagged for review; the stored current version stays.
 // Because "identical" compares against every stored version (history and conflict copies
 // included), importing the same file twice adds nothing.
 import type { Cruise, Observation, Observer, TrackPoint } from '../domain/model';
@@ -97,6 +103,8 @@ function planCruise(stored: Cruise | null, incoming: Cruise): MergePlan['cruise'
   // The settings saved last win; observers are never dropped.
   const base = incoming.updatedAt > stored.updatedAt ? incoming : stored;
   const value: Cruise = { ...base, observers: mergeObservers(stored.observers, incoming.observers) };
+  // The end time is a local watch setting the log format does not carry: a file never clears it.
+  if (value.endTime === undefined && stored.endTime !== undefined) value.endTime = stored.endTime;
   return { action: canonicalJson(value) === canonicalJson(stored) ? 'unchanged' : 'update', value };
 }
 
@@ -132,6 +140,10 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
     let cur: Observation | undefined = stored?.current;
     let kind: MergeKind = 'identical';
     let currentKind: MergeKind = 'identical';
+    // What the file itself holds of this observation: its lineage shows descent.
+    const incomingKeys = new Set(versions.map((x) => canonicalJson(x.v)));
+    const storedList = [...known];
+    const fileHoldsLaterStored = (revision: number) => storedList.some((x) => x.revision > revision && incomingKeys.has(x.key));
     for (const { v, role } of versions) {
       const key = canonicalJson(v);
       let k: MergeKind;
@@ -140,11 +152,14 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
       } else if (!cur) {
         cur = v;
         k = 'new';
-      } else if (v.revision > cur.revision) {
+      } else if (v.revision > cur.revision && (!stored || incomingKeys.has(canonicalJson(cur)))) {
         plan.addHistory.push(cur);
         cur = v;
         k = stored ? 'newer' : 'new';
-      } else if (known.some((x) => x.revision === v.revision)) {
+      } else if (stored && (v.revision > cur.revision || known.some((x) => x.revision === v.revision) || !fileHoldsLaterStored(v.revision))) {
+        plan.addConflicts.push(v);
+        k = 'conflict';
+      } else if (!stored && known.some((x) => x.revision === v.revision)) {
         plan.addConflicts.push(v);
         k = 'conflict';
       } else {

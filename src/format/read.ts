@@ -10,6 +10,7 @@ import { locatePointer } from './locate';
 import { MIGRATIONS, OLDEST_VERSION, VALIDATORS, migrateToCurrent } from './migrate';
 import { lineColumn, scanText } from './scan';
 import { findSyntaxError } from './syntax';
+import { otherFormat } from './text';
 import { MAX_LISTED_PROBLEMS } from './limits';
 import { pointerToPath, report, type Problem, type ProblemReport } from './problems';
 import { CURRENT_VERSION, FORMAT_NAME, type LogBundle } from './types';
@@ -38,8 +39,10 @@ export type ReadResult =
   | { ok: true; bundle: LogBundle; fromVersion: number; warnings: ReadWarning[]; archivePaths: Map<string, string> }
   | { ok: false; problems: ProblemReport };
 
-function reject(problems: Problem[]): ReadResult {
-  return { ok: false, problems: report(problems) };
+/** `uncounted`: further problems found but not kept (the validators keep MAX_SCHEMA_ERRORS). */
+function reject(problems: Problem[], uncounted = 0): ReadResult {
+  const r = report(problems);
+  return { ok: false, problems: { ...r, more: r.more + uncounted } };
 }
 
 const hasOwn = (o: object, k: string) => Object.prototype.hasOwnProperty.call(o, k);
@@ -167,7 +170,8 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
   try {
     data = JSON.parse(text);
   } catch (err) {
-    return reject([parseError(text, err)]);
+    const other = otherFormat(text);
+    return reject([other ? { path: '$', line: 1, column: 1, message: other } : parseError(text, err)]);
   }
   opts.onProgress?.('parse', 1);
 
@@ -176,7 +180,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
   }
   const doc = data as Record<string, unknown>;
   if (!hasOwn(doc, 'format') || doc.format !== FORMAT_NAME) {
-    return reject([{ path: '$.format', message: `must be "${FORMAT_NAME}": this is not a Floe Ledger log file` }]);
+    return reject([{ path: '$.format', message: `must be "${FORMAT_NAME}": ${otherFormat(text, doc) ?? 'this is not a Floe Ledger log file'}` }]);
   }
   const version = doc.formatVersion;
   if (typeof version !== 'number' || !Number.isInteger(version) || version < OLDEST_VERSION) {
@@ -195,7 +199,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
     const errors = validate.errors ?? [];
     const problems = errors.map((e) => schemaProblem(e, data));
     locate(text, problems, problems.map((p) => pathToPointer(p.path)));
-    return reject(problems);
+    return reject(problems, validate.droppedErrors ?? 0);
   }
   opts.onProgress?.('schema', 1);
 
@@ -206,7 +210,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
     if (!again(current)) {
       // A migration that produces an invalid file is a bug in this program, not in the file.
       const problems = (again.errors ?? []).map((e) => schemaProblem(e, current));
-      return reject(problems.map((p) => ({ ...p, message: `after migrating from version ${version}: ${p.message}` })));
+      return reject(problems.map((p) => ({ ...p, message: `after migrating from version ${version}: ${p.message}` })), again.droppedErrors ?? 0);
     }
   }
 
@@ -220,6 +224,14 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
   }
 
   const warnings: ReadWarning[] = [];
+  // A photo id with no photo in the file: the image was left out (a JSON log of a cruise whose
+  // photos were never exported) or the id is wrong. Imported, but said.
+  const photoIds = new Set(bundle.photos.map((p) => p.id));
+  bundle.observations.forEach((o, i) =>
+    o.photoIds.forEach((id, k) => {
+      if (!photoIds.has(id)) warnings.push({ path: `$.observations[${i}].photoIds[${k}]`, message: `names photo ${JSON.stringify(id)}, which is not in this file` });
+    }),
+  );
   const rules = opts.rules === undefined ? validateObservation : opts.rules;
   if (rules) {
     opts.onProgress?.('rules', 0);

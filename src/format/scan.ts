@@ -1,6 +1,7 @@
 // A single pass over the file text before JSON.parse: enforces nesting depth, string length and
-// array length limits, spots keys that could reach an object's prototype, and reports a
-// truncated file with its line. JSON.parse itself would happily build a 5 GB array or recurse
+// array length limits, spots keys that could reach an object's prototype and keys given twice in
+// one object (JSON.parse keeps the last, other readers the first: a file must not mean two
+// things), and reports a truncated file with its line. JSON.parse itself would happily build a 5 GB array or recurse
 // until the stack overflows; this pass refuses such files while they are still only text.
 import { LIMITS } from './limits';
 import type { Problem } from './problems';
@@ -37,6 +38,9 @@ export function scanText(text: string, limits: ScanLimits = LIMITS, onProgress?:
   const maxDepth = limits.maxDepth;
   const isArray = new Uint8Array(maxDepth + 1);
   const commas = new Float64Array(maxDepth + 1);
+  // Per open object: whether the next string is a key, and the keys seen (made on the first key).
+  const expectKey = new Uint8Array(maxDepth + 1);
+  const keys: (Set<string> | null)[] = new Array<Set<string> | null>(maxDepth + 1).fill(null);
   let depth = 0;
   const n = text.length;
   const progressStep = 1 << 22;
@@ -68,6 +72,21 @@ export function scanText(text: string, limits: ScanLimits = LIMITS, onProgress?:
           if (text.charCodeAt(j) === 58 /* : */) return at(text, start, '$', `the key "${key}" is not allowed anywhere in a log file`);
         }
       }
+      if (depth > 0 && isArray[depth] === 0 && expectKey[depth] === 1) {
+        expectKey[depth] = 0;
+        const raw = text.slice(start + 1, i);
+        let key = raw;
+        if (raw.includes('\\')) {
+          try {
+            key = JSON.parse(`"${raw}"`) as string;
+          } catch {
+            continue; // a bad escape: JSON.parse reports it with its place
+          }
+        }
+        const seen = keys[depth] ?? (keys[depth] = new Set<string>());
+        if (seen.has(key)) return at(text, start, '$', `the key ${JSON.stringify(key)} appears twice in one object`);
+        seen.add(key);
+      }
       continue;
     }
     if (c === 91 /* [ */ || c === 123 /* { */) {
@@ -75,10 +94,13 @@ export function scanText(text: string, limits: ScanLimits = LIMITS, onProgress?:
       if (depth > maxDepth) return at(text, i, '$', `nesting deeper than ${maxDepth} levels`);
       isArray[depth] = c === 91 ? 1 : 0;
       commas[depth] = 0;
+      expectKey[depth] = c === 123 ? 1 : 0;
+      keys[depth] = null;
     } else if (c === 93 /* ] */ || c === 125 /* } */) {
       if (depth === 0) return at(text, i, '$', `unexpected "${String.fromCharCode(c)}"`);
       depth--;
     } else if (c === 44 /* , */) {
+      if (depth > 0 && isArray[depth] === 0) expectKey[depth] = 1;
       if (depth > 0 && isArray[depth] === 1) {
         const count = (commas[depth] = (commas[depth] ?? 0) + 1) + 1;
         if (count > limits.maxArrayLength) return at(text, i, '$', `an array with more than ${limits.maxArrayLength} elements`);

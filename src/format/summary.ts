@@ -4,7 +4,7 @@
 import { alongTrackDistanceM, METRES_PER_NM } from '../domain/geodesy';
 import type { Observation, StageKey } from '../domain/model';
 import { checkSequence, validateObservation } from '../domain/rules';
-import { reviewCruise, type CruiseReview } from '../domain/stats';
+import { REVIEW_CAUTIONS, RIDGE_FIGURE_ESTIMATES, reviewCruise, type CruiseReview, type RidgeFigure } from '../domain/stats';
 import type { LogBundle } from './types';
 
 export interface CruiseSummary {
@@ -22,7 +22,25 @@ export interface CruiseSummary {
   findings: { errors: number; warnings: number; byCode: Record<string, number> };
   /** The chief scientist's figures (ice hours and distances, thickness, POLARIS), as the Review screen shows them. */
   review: CruiseReview['summary'];
+  /** The review's cautions (overview not chart, POLARIS is decision support, estimates), as `polaris --json` carries its own. */
+  cautions: string[];
+  /** Figures that are estimates, by their dotted path in this object, each with its basis. */
+  estimates: EstimatedFigure[];
 }
+
+export interface EstimatedFigure {
+  /** Dotted path of the figure in the summary, e.g. `review.ice.meanThicknessWithRidgesCm`. */
+  path: string;
+  estimate: true;
+  basis: string;
+}
+
+/** Every ridge-based figure of the summary is an estimate. */
+const ESTIMATES: readonly EstimatedFigure[] = (Object.keys(RIDGE_FIGURE_ESTIMATES) as RidgeFigure[]).map((k) => ({
+  path: `review.ice.${k}`,
+  estimate: true,
+  basis: RIDGE_FIGURE_ESTIMATES[k],
+}));
 
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 
@@ -60,6 +78,8 @@ export function summarise(bundle: LogBundle): CruiseSummary {
     photos: bundle.photos.length,
     findings: { errors: findings.filter((f) => f.severity === 'error').length, warnings: findings.filter((f) => f.severity === 'warning').length, byCode },
     review: reviewCruise({ cruise: bundle.cruise, observations: bundle.observations, track: bundle.track }).summary,
+    cautions: [...REVIEW_CAUTIONS],
+    estimates: ESTIMATES.map((e) => ({ ...e })),
   };
 }
 
@@ -85,6 +105,8 @@ export function summaryLines(s: CruiseSummary): string[] {
     ...Object.entries(s.findings.byCode)
       .sort((a, b) => b[1] - a[1])
       .map(([k, n]) => `  ${k}: ${n}`),
+    'Cautions:',
+    ...s.cautions.map((c) => `  - ${c}`),
   ];
   return lines;
 }
@@ -102,7 +124,7 @@ function reviewLines(r: CruiseReview['summary']): string[] {
     td('Pack ice', r.pack) + ' (9-10/10)',
     `Gaps        ${r.gaps.length}, ${r.unobservedHours.toFixed(1)} h with no observation`,
     `Thickness   ${fixed(ice.meanThicknessCm, 0, ' cm')} level, ${fixed(ice.meanThicknessWithRidgesCm, 0, ' cm')} with ridges (estimate), concentration-weighted`,
-    `Ridged      ${ice.ridgedShare === null ? '-' : `${(ice.ridgedShare * 100).toFixed(0)} %`} of the ice area`,
+    `Ridged      ${ice.ridgedShare === null ? '-' : `${(ice.ridgedShare * 100).toFixed(0)} %`} of the ice area (observers' estimate)`,
     `POLARIS     class ${r.polaris.iceClass}: RIO min ${fixed(r.polaris.minRio, 0)}, mean ${fixed(r.polaris.meanRio, 1)} (decision support only)`,
     ...r.polaris.outcomes.map((o) => `  ${o.label}: ${o.hours.toFixed(1)} h`),
   ];

@@ -1,6 +1,8 @@
-// The shapes of a Floe Ledger log file, version 1, as written to disk, and of the decoded
-// bundle the rest of the program works with. docs/format.md explains every field; the JSON
-// Schema (src/format/schema/floe-ledger-log-1.schema.json) is generated from schemaV1.ts.
+// The shapes of a Floe Ledger log file, version 2, as written to disk (and of version 1, which
+// the migration reads), and of the decoded bundle the rest of the program works with.
+// docs/format.md explains every field; the JSON Schema
+// (src/format/schema/floe-ledger-log-2.schema.json) is generated from schemaV2.ts.
+import type { LegacyIceTypeFields } from '../domain/legacyIceTypes';
 import type {
   Cruise,
   FloeSizeKey,
@@ -15,10 +17,12 @@ import type {
 } from '../domain/model';
 
 export const FORMAT_NAME = 'floe-ledger-log';
-export const CURRENT_VERSION = 1;
+export const CURRENT_VERSION = 2;
 export const MEDIA_TYPE = 'application/vnd.floe-ledger.log+json';
 /** Where the schema of version 1 is published with the app (public/format/). */
 export const SCHEMA_V1_PATH = 'format/floe-ledger-log-1.schema.json';
+/** Where the schema of version 2, the current one, is published. */
+export const SCHEMA_V2_PATH = 'format/floe-ledger-log-2.schema.json';
 
 /** Units and conventions, stated in every file so that it reads without this program. */
 export const UNITS_V1 = {
@@ -39,6 +43,8 @@ export const UNITS_V1 = {
   terms: 'WMO Sea-Ice Nomenclature (WMO-No. 259)',
   codes: 'SIGRID-3 (WMO/TD-No. 1214), two-digit strings',
 } as const;
+/** Version 2 states the same units (snow depth and sail height moved into groups, same units). */
+export const UNITS_V2 = UNITS_V1;
 
 export const TRACK_COLUMNS = ['time', 'lat', 'lon', 'source', 'sogKn', 'cogDeg', 'headingDeg'] as const;
 /** One track point as a row of TRACK_COLUMNS; null where a value is not known. */
@@ -96,10 +102,28 @@ export interface FileVessel {
   iceClass: VesselIceClass;
 }
 
-export interface LogFileV1 {
+/** An ice type of a version-1 file: deformation and snow still inside it. */
+export type FileCategoryV1 = FileCategory & LegacyIceTypeFields;
+
+/** An observation version of a version-1 file: no groups, the old ice types. */
+export interface FileObservationVersionV1 extends Omit<FileObservationVersion, 'categories' | 'deformation' | 'snow'> {
+  categories: FileCategoryV1[];
+}
+
+export interface FileObservationV1 extends FileObservationVersionV1 {
+  history?: FileObservationVersionV1[];
+  conflicts?: FileObservationVersionV1[];
+}
+
+export interface LogFileV1 extends Omit<LogFileV2, 'formatVersion' | 'observations'> {
+  formatVersion: 1;
+  observations: FileObservationV1[];
+}
+
+export interface LogFileV2 {
   $schema?: string;
   format: typeof FORMAT_NAME;
-  formatVersion: 1;
+  formatVersion: 2;
   exportedAt: IsoUtc;
   generator: { name: string; version: string };
   units: typeof UNITS_V1;

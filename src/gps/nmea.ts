@@ -147,19 +147,23 @@ function int(fields: readonly string[], i: number, name: string, range: [number,
   return num(fields, i, name, range);
 }
 
+const TIME_OF_DAY = /^\d{6}(?:\.\d+)?$/;
+
 /** `hhmmss` or `hhmmss.ss` to seconds of day. */
 function time(fields: readonly string[], i: number): SecondsOfDay | null {
   const s = fields[i] ?? '';
   if (s === '') return null;
-  const m = /^(\d\d)(\d\d)(\d\d(?:\.\d+)?)$/.exec(s);
-  if (!m) throw new FieldError('time', `time "${s}" is not hhmmss.ss`);
-  const h = Number(m[1]);
-  const mi = Number(m[2]);
-  const sec = Number(m[3]);
+  if (!TIME_OF_DAY.test(s)) throw new FieldError('time', `time "${s}" is not hhmmss.ss`);
+  // Digits by position: no capture groups, no substrings (a log has a time on every fix).
+  const h = (s.charCodeAt(0) - 48) * 10 + s.charCodeAt(1) - 48;
+  const mi = (s.charCodeAt(2) - 48) * 10 + s.charCodeAt(3) - 48;
+  const sec = s.length === 6 ? (s.charCodeAt(4) - 48) * 10 + s.charCodeAt(5) - 48 : Number(s.slice(4));
   // 60 allows a leap second.
   if (h > 23 || mi > 59 || sec >= 61) throw new FieldError('time', `time "${s}" is not a valid time of day`);
   return h * 3600 + mi * 60 + sec;
 }
+
+const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
 /** `ddmmyy` to a date; two-digit years are taken as 2000-2099 except 80-99 (GPS began in 1980). */
 function date(fields: readonly string[], i: number): UtcDate | null {
@@ -171,23 +175,25 @@ function date(fields: readonly string[], i: number): UtcDate | null {
   const month = Number(m[2]);
   const yy = Number(m[3]);
   const year = yy >= 80 ? 1900 + yy : 2000 + yy;
-  const daysInMonth = new Date(Date.UTC(year, month, 0)).getUTCDate();
+  const daysInMonth = month === 2 ? (year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0) ? 29 : 28) : (DAYS_IN_MONTH[month - 1] ?? 0);
   if (month < 1 || month > 12 || day < 1 || day > daysInMonth) throw new FieldError('date', `date "${s}" is not a calendar date`);
   return { year, month, day };
 }
 
-const LATITUDE = /^(\d{2})(\d\d(?:\.\d+)?)$/;
-const LONGITUDE = /^(\d{3})(\d\d(?:\.\d+)?)$/;
+const LATITUDE = /^\d{4}(?:\.\d+)?$/;
+const LONGITUDE = /^\d{5}(?:\.\d+)?$/;
 
 /** `ddmm.mmmm` + hemisphere, or `dddmm.mmmm` for longitude, to signed decimal degrees. */
 function coordinate(fields: readonly string[], i: number, axis: 'latitude' | 'longitude'): number | null {
   const v = fields[i] ?? '';
   const hemi = fields[i + 1] ?? '';
   if (v === '' && hemi === '') return null;
-  const m = (axis === 'latitude' ? LATITUDE : LONGITUDE).exec(v);
-  if (!m) throw new FieldError(axis, `${axis} "${v}" is not ${axis === 'latitude' ? 'ddmm.mmmm' : 'dddmm.mmmm'}`);
-  const deg = Number(m[1]);
-  const min = Number(m[2]);
+  const lat = axis === 'latitude';
+  if (!(lat ? LATITUDE : LONGITUDE).test(v)) throw new FieldError(axis, `${axis} "${v}" is not ${lat ? 'ddmm.mmmm' : 'dddmm.mmmm'}`);
+  const degDigits = lat ? 2 : 3;
+  let deg = 0;
+  for (let k = 0; k < degDigits; k++) deg = deg * 10 + v.charCodeAt(k) - 48;
+  const min = Number(v.slice(degDigits));
   if (min >= 60) throw new FieldError(axis, `${axis} "${v}" has ${min} minutes`);
   const value = deg + min / 60;
   const max = axis === 'latitude' ? 90 : 180;
@@ -287,7 +293,6 @@ function failure(kind: NmeaErrorKind, sentence: string, message: string, raw: st
 
 const ADDRESS = /^[A-Z][A-Z0-9]{4}$/;
 const PROPRIETARY = /^P[A-Z0-9]{3,9}$/;
-const NOT_PRINTABLE = /[^\x20-\x7e]/;
 const HEX2 = /^[0-9A-Fa-f]{2}$/;
 const SUPPORTED = new Set<string>(SUPPORTED_SENTENCES);
 
@@ -306,13 +311,19 @@ export function parseNmea(line: string, opts: ParseOptions = {}): ParseResult {
   const proprietary = PROPRIETARY.test(address);
   if (!proprietary && !ADDRESS.test(address)) return failure('framing', '?', `address field "${address.slice(0, 12)}" is not a talker id and a sentence type`, raw);
   const name = address;
-  // Printable ASCII only (NMEA 0183 reserves the rest); a stray byte means line noise.
-  if (NOT_PRINTABLE.test(body)) return failure('framing', name, 'contains characters that are not printable ASCII', raw);
+  // Printable ASCII only (NMEA 0183 reserves the rest); a stray byte means line noise. The same
+  // pass sums the checksum: this runs for every line of a log of millions.
+  let xor = 0;
+  for (let i = 0; i < body.length; i++) {
+    const c = body.charCodeAt(i);
+    if (c < 0x20 || c > 0x7e) return failure('framing', name, 'contains characters that are not printable ASCII', raw);
+    xor ^= c;
+  }
   let checksum: 'valid' | 'absent' = 'absent';
   if (star >= 0) {
     const given = raw.slice(star + 1);
     if (!HEX2.test(given)) return failure('checksum', name, `checksum "${given}" is not two hex digits`, raw, 'checksum');
-    const expected = nmeaChecksum(body);
+    const expected = (xor < 16 ? '0' : '') + xor.toString(16).toUpperCase();
     if (given.toUpperCase() !== expected) return failure('checksum', name, `checksum ${given} does not match ${expected}`, raw, 'checksum');
     checksum = 'valid';
   } else if (!opts.allowMissingChecksum) {

@@ -22,14 +22,18 @@ export async function importNmeaLog(text: string, opts: TrackImportOptions): Pro
   let records = 0;
   await inChunks(lines.length, opts, 'reading sentences', 0, 0.7, (i) => {
     const raw = lines[i] ?? '';
-    if (raw.trim() === '') return;
+    // The usual line starts with its sentence: no copies, no pattern search.
+    const c0 = raw.charCodeAt(0);
+    if (c0 !== 36 && c0 !== 33 && raw.trim() === '') return;
     records++;
-    const start = raw.search(/[$!]/);
+    const dollar = c0 === 36 || c0 === 33 ? 0 : raw.indexOf('$');
+    const bang = dollar === 0 ? -1 : raw.indexOf('!');
+    const start = dollar < 0 ? bang : bang < 0 ? dollar : Math.min(dollar, bang);
     if (start < 0) {
       bad.add(i + 1, 'no NMEA sentence on this line');
       return;
     }
-    const r = parseNmea(raw.slice(start));
+    const r = parseNmea(start === 0 ? raw : raw.slice(start));
     if (r.ok) parsed.push({ line: i + 1, s: r.value });
     else if (r.error.kind === 'unsupported') skipped++;
     else bad.add(i + 1, describeNmeaError(r.error));

@@ -3,19 +3,26 @@
 // turns it into an Observation and reports what it cannot read. The draft is autosaved to the
 // database by the log screen on every change.
 import { create } from 'zustand';
-import type { FloeSizeKey, OpenWaterKind, Position, PositionSource, SnowKind, StageKey } from '../domain/model';
+import type { FloeSizeKey, OpenWaterKind, Position, PositionSource, SnowCoverKey, SnowWetness, StageKey } from '../domain/model';
 
+/**
+ * One ice type as typed, with its deformation and snow rows: the form shows those in fieldsets
+ * of their own, but they belong to the ice type and move with it when the types are reordered.
+ */
 export interface CategoryDraft {
   /** Stable key for React and for focus, independent of the category's place in the order. */
   key: string;
   partial: string;
   stage: StageKey | '';
-  thicknessCm: string;
   floeSize: FloeSizeKey | '';
+  thicknessCm: string;
   ridged: string;
   rafted: string;
   sailHeightM: string;
-  snowKind: SnowKind | '';
+  snowCover: SnowCoverKey | '';
+  snowWetness: SnowWetness | '';
+  snowCrust: boolean;
+  snowDrifts: boolean;
   snowDepthCm: string;
 }
 
@@ -75,14 +82,25 @@ export function emptyCategory(): CategoryDraft {
     key: newCategoryKey(),
     partial: '',
     stage: '',
-    thicknessCm: '',
     floeSize: '',
+    thicknessCm: '',
     ridged: '',
     rafted: '',
     sailHeightM: '',
-    snowKind: '',
+    snowCover: '',
+    snowWetness: '',
+    snowCrust: false,
+    snowDrifts: false,
     snowDepthCm: '',
   };
+}
+
+/**
+ * A stored draft with every field of today's ice-type rows: a draft kept by an older version
+ * (or by another tab still running one) may lack a field added since, and the form reads them all.
+ */
+export function withCategoryDefaults(draft: ObservationDraft): ObservationDraft {
+  return { ...draft, categories: draft.categories.map((c) => ({ ...emptyCategory(), ...c })) };
 }
 
 export function emptyDraft(observerId = '', positionSource: PositionSource = 'manual'): ObservationDraft {

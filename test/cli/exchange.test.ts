@@ -6,8 +6,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import Papa from 'papaparse';
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { CliIO } from '../../src/cli/command.ts';
-import { runCli } from '../../src/cli/main.ts';
+import { run } from './runCollected.ts';
 import { makeDemoCruise } from '../../src/domain/demo.ts';
 import { alongTrackDistanceM } from '../../src/domain/geodesy.ts';
 import { reviewCruise } from '../../src/domain/stats.ts';
@@ -17,13 +16,6 @@ const ROOT = resolve(import.meta.dirname, '../..');
 const dir = mkdtempSync(join(tmpdir(), 'floe-cli-'));
 const demoFile = join(dir, 'demo.json');
 
-async function run(...argv: string[]) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const io: CliIO = { stdout: (l) => out.push(l), stderr: (l) => err.push(l) };
-  const code = await runCli(argv, io);
-  return { code, out, err };
-}
 
 beforeAll(async () => {
   expect((await run('demo', '-o', demoFile)).code).toBe(0);
@@ -101,6 +93,58 @@ describe('summary', { timeout: 60_000 }, () => {
   });
 });
 
+// IMO MSC.1/Circ.1519: POLARIS output is decision support, so every POLARIS figure travels with
+// its cautions, in machine output too (as `polaris --json` does). The thickness with ridges is an
+// estimate (Timco and Burden 1997 ratios from the sail height) and the ridged share a visual one:
+// the JSON says so for every ridge-based figure, so a script cannot take them for measurements.
+describe('summary --json: cautions and estimates', { timeout: 60_000 }, () => {
+  type Flag = { path: string; estimate: boolean; basis: string };
+  const summaryJson = async () => JSON.parse((await run('summary', demoFile, '--json')).out.at(-1) as string) as Record<string, unknown> & { cautions: string[]; estimates: Flag[] };
+
+  it('carries a cautions array with the POLARIS cautions of `polaris --json` and the map caution', async () => {
+    const s = await summaryJson();
+    const p = JSON.parse((await run('polaris', '--class', 'PC5', '--ice', '5:thick-first-year', '--json')).out.at(-1) as string) as { cautions: string[] };
+    expect(Array.isArray(s.cautions)).toBe(true);
+    expect(p.cautions.length).toBeGreaterThan(0);
+    for (const c of p.cautions) expect(s.cautions).toContain(c);
+    expect(s.cautions.join(' ')).toContain('not a navigation chart');
+    expect(s.cautions.join(' ')).toContain('Timco and Burden 1997');
+  });
+
+  it('flags every ridge-based figure as an estimate, by its path, with its basis', async () => {
+    const s = await summaryJson();
+    const ridgePaths: string[] = [];
+    const walk = (v: unknown, path: string) => {
+      if (v === null || typeof v !== 'object') return;
+      for (const [k, x] of Object.entries(v)) {
+        const p = path ? `${path}.${k}` : k;
+        if (/ridge/i.test(k)) ridgePaths.push(p);
+        if (!Array.isArray(x) && p !== 'estimates' && p !== 'cautions') walk(x, p);
+      }
+    };
+    walk(s, '');
+    expect(ridgePaths).toContain('review.ice.meanThicknessWithRidgesCm');
+    const flagged = new Map(s.estimates.map((e) => [e.path, e]));
+    for (const p of ridgePaths) {
+      expect(flagged.get(p), p).toMatchObject({ estimate: true });
+      expect(flagged.get(p)?.basis, p).toMatch(/^Estimate: /);
+    }
+    expect(flagged.get('review.ice.meanThicknessWithRidgesCm')?.basis).toContain('Timco and Burden (1997)');
+    // Every flagged path names a figure that is really there.
+    for (const e of s.estimates) {
+      const value = e.path.split('.').reduce<unknown>((o, k) => (o as Record<string, unknown> | undefined)?.[k], s);
+      expect(value, e.path).not.toBeUndefined();
+    }
+  });
+
+  it('the text form ends with the cautions too', async () => {
+    const text = (await run('summary', demoFile)).out.join('\n');
+    expect(text).toContain('Cautions:');
+    expect(text).toContain('decision support only (IMO MSC.1/Circ.1519)');
+    expect(text).toMatch(/Thickness .* with ridges \(estimate\)/);
+  });
+});
+
 describe('convert', { timeout: 60_000 }, () => {
   it('to csv, geojson and ndjson', async () => {
     for (const to of ['csv', 'geojson', 'ndjson']) expect((await run('convert', demoFile, '--to', to, '-o', join(dir, `demo.${to}`))).code).toBe(0);
@@ -120,25 +164,34 @@ describe('convert', { timeout: 60_000 }, () => {
 });
 
 describe('merge', { timeout: 60_000 }, () => {
-  it('merges by the app rules: identical adds nothing, a newer revision is applied, a conflict is kept', async () => {
+  it('merges independent of the order of the files, printing each disagreement (issue 16)', async () => {
     const doc = JSON.parse(readFileSync(demoFile, 'utf8')) as { observations: Record<string, unknown>[] };
     const o0 = doc.observations[0] as Record<string, unknown>;
     const o1 = doc.observations[1] as Record<string, unknown>;
     doc.observations[0] = { ...o0, revision: 2, notes: 'edited on laptop B', history: [o0] };
-    doc.observations[1] = { ...o1, notes: 'same revision, other text' };
+    doc.observations[1] = { ...o1, notes: 'same revision, other text', savedAt: '2026-12-01T00:00:00Z' };
     const b = join(dir, 'laptop-b.json');
     writeFileSync(b, JSON.stringify(doc));
-    const out = join(dir, 'merged.json');
-    const r = await run('merge', demoFile, b, demoFile, '-o', out);
-    expect(r.code).toBe(0);
-    expect(r.out[1]).toMatch(/laptop-b\.json: 0 new, \d+ identical, 1 newer, 0 older, 1 conflicting/);
-    expect(r.out[2]).toMatch(/demo\.json: 0 new, \d+ identical, 0 newer, 0 older, 0 conflicting; 0 new track points/);
-    const merged = readLogText(readFileSync(out, 'utf8'));
-    expect(merged.ok).toBe(true);
-    if (!merged.ok) return;
-    expect(merged.bundle.observations.find((o) => o.id === o0.id)?.notes).toBe('edited on laptop B');
-    expect(merged.bundle.history.map((h) => h.id)).toEqual([o0.id]);
-    expect(merged.bundle.conflicts.map((c) => c.notes)).toEqual(['same revision, other text']);
+    const outs = [join(dir, 'merged-1.json'), join(dir, 'merged-2.json')];
+    const r1 = await run('merge', demoFile, b, demoFile, '-o', outs[0] as string);
+    const r2 = await run('merge', b, demoFile, '-o', outs[1] as string);
+    for (const r of [r1, r2]) {
+      expect(r.code).toBe(0);
+      const lines = r.out.filter((l) => l.startsWith('disagreement:'));
+      expect(lines).toEqual([`disagreement: observation ${String(o1.id)}: revision 1 in ${demoFile} differs from revision 1 in ${b}; kept as a conflicting copy for review`]);
+      expect(r.out.at(-1)).toMatch(/; 1 disagreement$/);
+    }
+    const read = outs.map((f) => readLogText(readFileSync(f, 'utf8')));
+    const bundles = read.map((m) => (m.ok ? m.bundle : null));
+    expect(bundles[0]).not.toBeNull();
+    expect(bundles[1]).toEqual(bundles[0]);
+    const merged = bundles[0];
+    if (!merged) return;
+    expect(merged.observations.find((o) => o.id === o0.id)?.notes).toBe('edited on laptop B');
+    // The copy saved last is current (the rule), the other one is kept for review.
+    expect(merged.observations.find((o) => o.id === o1.id)?.notes).toBe('same revision, other text');
+    expect(merged.history.map((h) => h.id)).toEqual([o0.id]);
+    expect(merged.conflicts.map((c) => c.notes)).toEqual([o1.notes]);
   });
   it('writes nothing when a file is rejected or of another cruise', async () => {
     const other = join(dir, 'other.json');
@@ -146,7 +199,7 @@ describe('merge', { timeout: 60_000 }, () => {
     const out = join(dir, 'never.json');
     const r = await run('merge', demoFile, other, '-o', out);
     expect(r.code).toBe(1);
-    expect(r.err[0]).toContain('not of "FW26-03');
+    expect(r.err[0]).toMatch(/^the files are of different cruises: .*(demo|other)\.json is of cruise "[^"]+" \([\w-]+\); .*(demo|other)\.json is of cruise "[^"]+" \([\w-]+\); nothing written$/);
     expect(() => readFileSync(out)).toThrow();
   });
 });

@@ -65,6 +65,35 @@ describe('polaris command (IMO MSC.1/Circ.1519)', () => {
   });
 });
 
+// IMO MSC.1/Circ.1519 Table 1.3 names its rows "PC 1" ... "PC 7", "IA Super", "IA", "IB", "IC" and
+// "Not ice-strengthened"; the Finnish-Swedish rules write "1A Super", "1A", "1B", "1C" (from
+// memory). Any of these, in any case and with or without spaces and hyphens, names the class.
+describe('--class takes the circular\'s spellings', () => {
+  it.each([
+    ['IA Super', 'IA-Super'], ['ia super', 'IA-Super'], ['IA-Super', 'IA-Super'], ['iasuper', 'IA-Super'], ['1A Super', 'IA-Super'],
+    ['PC 5', 'PC5'], ['pc5', 'PC5'], ['Pc-5', 'PC5'], [' PC 1 ', 'PC1'], ['PC7', 'PC7'],
+    ['IA', 'IA'], ['1A', 'IA'], ['ib', 'IB'], ['I C', 'IC'],
+    ['Not ice-strengthened', 'none'], ['NOT ICE STRENGTHENED', 'none'], ['none', 'none'],
+  ])('"%s" is %s', async (typed, key) => {
+    // 10/10 ice free is RIO 30 for every class (Table 1.3, first column all 3).
+    const r = await run('polaris', '--class', typed, '--ice', '0:new', '--json');
+    expect(r.code, r.stderr).toBe(0);
+    expect(JSON.parse(r.lastLine)).toMatchObject({ iceClass: key, rio: 30 });
+  });
+
+  it('IA Super as typed from the circular gives its own row: 10/10 thick FY = 10 x (-2) = -20, special', async () => {
+    const r = await run('polaris', '--class', 'IA Super', '--ice', '10:thick-first-year', '--json');
+    expect(JSON.parse(r.lastLine)).toMatchObject({ iceClass: 'IA-Super', rio: -20, outcome: 'special' });
+  });
+
+  it.each(['PC 8', 'IA Ultra', 'ice class', ''])('refuses "%s", listing the spellings', async (typed) => {
+    const r = await run('polaris', '--class', typed, '--ice', '0:new');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toContain('unknown ice class');
+    expect(r.stderr).toContain('IA Super');
+  });
+});
+
 describe('dispatcher', () => {
   it('lists commands, prints help, rejects unknown commands', async () => {
     expect((await run()).code).toBe(2);

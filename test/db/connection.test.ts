@@ -25,7 +25,7 @@ const db = freshDatabasePerTest();
 
 /** A later version as a future release might add it: one new index, no row changes. */
 const FUTURE: SchemaVersion = {
-  version: SCHEMA_VERSIONS.length + 1,
+  version: (SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.version ?? 0) + 1,
   note: 'test only',
   stores: { ...SCHEMA_VERSIONS[SCHEMA_VERSIONS.length - 1]?.stores, photos: 'id, observationId, cruiseId, addedAt' },
 };

@@ -50,6 +50,16 @@ describe('cruises', () => {
     await expect(updateCruise('nope', { name: 'x' })).rejects.toBeInstanceOf(RecordNotFoundError);
   });
 
+  it('stores a cruise end time, refuses one that is no UTC time, and reopens the cruise', async () => {
+    const c = await makeCruise();
+    const ended = await updateCruise(c.id, { endTime: '2026-12-02T18:57:00Z' });
+    expect((await getCruise(c.id))?.endTime).toBe('2026-12-02T18:57:00Z');
+    await expect(updateCruise(c.id, { endTime: 'yesterday' })).rejects.toThrow(/endTime/);
+    expect(await getCruise(c.id)).toEqual(ended);
+    await updateCruise(c.id, { endTime: undefined });
+    expect(Object.keys((await getCruise(c.id)) ?? {})).not.toContain('endTime');
+  });
+
   it('refuses invalid cruises, naming the field, and changes nothing', async () => {
     const c = await makeCruise();
     const cases: [Record<string, unknown>, string][] = [

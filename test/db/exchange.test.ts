@@ -129,7 +129,7 @@ describe('exchange with the store', { timeout: 120_000 }, () => {
     const plan = planMerge(await loadMergeTarget(b.cruise.id), r.bundle);
     const before = await dumpAll();
     const name = getDb().name;
-    selectDatabase(name).use(quotaFailure((table) => table === 'trackPoints'));
+    selectDatabase(name).use(quotaFailure((table) => table === 'trackChunks'));
     await expect(applyMergePlan(plan, { source: 'x.json' })).rejects.toMatchObject({ kind: 'storage-full' });
     selectDatabase(name);
     expect(await dumpAll()).toEqual(before);

@@ -40,9 +40,10 @@ export function makeObservation(cruiseId: string, overrides: Partial<Observation
     observerId: 'obs-ak',
     totalConcentration: 8,
     categories: [
-      { partialConcentration: 5, stage: 'thin-first-year', thicknessCm: 45, floeSize: 'medium-floe', ridgedTenths: 2 },
-      { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20, floeSize: 'small-floe' },
+      { partialConcentration: 5, stage: 'thin-first-year', floeSize: 'medium-floe', thicknessCm: 45 },
+      { partialConcentration: 3, stage: 'grey-white', floeSize: 'small-floe', thicknessCm: 20 },
     ],
+    deformation: { a: { ridgedTenths: 2 } },
     notes: 'Snow cover patchy.',
     photoIds: [],
     ...overrides,

@@ -70,7 +70,7 @@ describe('track points', () => {
 
   it('a batch that fails is absent in full; the batches before it are present in full', async () => {
     let batch = 0;
-    selectDatabase(db.name()).use(quotaFailure((table) => table === 'trackPoints' && ++batch === 3));
+    selectDatabase(db.name()).use(quotaFailure((table) => table === 'trackChunks' && ++batch === 3));
     const pts = track('c1', 4_500);
     const err = await addTrackPoints(pts, { chunkSize: 1_000 }).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(BulkWriteInterruptedError);

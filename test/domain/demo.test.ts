@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import geographiclib from 'geographiclib-geodesic';
 import { DEMO_HOURS, demoIceDepthNm, makeDemoCruise, makePrng } from '../../src/domain/demo';
+import { snowOf } from '../../src/domain/iceTypes';
 import { STAGE_KEYS, type IceCategory, type StageKey } from '../../src/domain/model';
 import { checkSequence, validateObservation } from '../../src/domain/rules';
 
@@ -109,13 +110,16 @@ describe('demo cruise generator', () => {
     for (const o of clean) {
       expect(o.categories.reduce((s, c) => s + c.partialConcentration, 0)).toBe(o.totalConcentration);
       for (let i = 1; i < o.categories.length; i++) expect(rank(o.categories[i]!)).toBeLessThan(rank(o.categories[i - 1]!));
-      for (const c of o.categories) {
+      o.categories.forEach((c, i) => {
         const range = WMO_THICKNESS_CM[c.stage];
         expect(range, c.stage).toBeDefined();
         expect(c.thicknessCm).toBeGreaterThanOrEqual(range![0]);
         expect(c.thicknessCm).toBeLessThanOrEqual(range![1]);
-        if (c.snowDepthCm !== undefined) expect(c.snowDepthCm).toBeLessThan(c.thicknessCm!);
-      }
+        const depth = snowOf(o, i)?.depthCm;
+        if (depth !== undefined) expect(depth).toBeLessThan(c.thicknessCm!);
+      });
+      // Groups name only ice types the observation has.
+      for (const k of [...Object.keys(o.deformation ?? {}), ...Object.keys(o.snow ?? {})]) expect(['a', 'b', 'c'].indexOf(k)).toBeLessThan(o.categories.length);
     }
   });
 

@@ -216,3 +216,95 @@ describe('polarisForObservation', () => {
     expect(polarisForObservation({ totalConcentration: 0, categories: [] }, 'PC5')).toMatchObject({ ok: true, value: { rio: 30 } });
   });
 });
+
+// The remaining thinner ice (Sd) and the trace (So) in POLARIS. Every RIO below is worked by hand
+// from IMO MSC.1/Circ.1519 Table 1.3 (typed above) and the circular's RIO = sum of C x RIV with
+// the ice-free share included (section 1.5.1 of the circular's Annex). That Sd is the stage of the
+// ice not covered by Ca, Cb, Cc and So is a trace of less than 1/10 is the egg code as WMO-No. 259
+// describes it.
+describe('polarisForObservation: remaining stage (Sd) and trace (So)', () => {
+  it('one category + Sd: Ct 9, 5/10 thick FY, Sd grey, PC7 -> 5x(-2) + 4x2 + 1x3 = 1, normal', () => {
+    // The example of issue 11. Before the fix the whole 9/10 went to thick FY: 9x(-2) + 3 = -15.
+    const r = polarisForObservation({
+      totalConcentration: 9, remainingStage: 'grey',
+      categories: [{ partialConcentration: 5, stage: 'thick-first-year' }],
+    }, 'PC7');
+    expect(r).toMatchObject({ ok: true, value: { rio: 1, outcome: 'normal', speedLimitKn: null } });
+    if (!r.ok) return;
+    expect(r.value.regime).toEqual([
+      { iceType: 'thick-first-year', tenths: 5, riv: -2 },
+      { iceType: 'grey', tenths: 4, riv: 2 },
+      { iceType: 'ice-free', tenths: 1, riv: 3 },
+    ]);
+    expect(r.value.notes.join(' ')).toContain('4/10 not covered by the partial concentrations is taken as the remaining stage (grey ice)');
+  });
+
+  it('one category + Sd in a Baltic class: IA, Ct 10, 7/10 medium FY 110 cm, Sd new -> 7x(-2) + 3x2 = -8, special', () => {
+    // IA: medium FY -2, new 2; below PC7 every RIO < 0 is special consideration (Table 1.1).
+    const r = polarisForObservation({
+      totalConcentration: 10, remainingStage: 'new',
+      categories: [{ partialConcentration: 7, stage: 'medium-first-year', thicknessCm: 110 }],
+    }, 'IA');
+    expect(r).toMatchObject({ ok: true, value: { rio: -8, outcome: 'special' } });
+  });
+
+  it('one category + Sd whose partial already equals Ct: Sd has no share, the category keeps Ct', () => {
+    // PC5: 8 thick FY (0) + 2 ice free (3) = 6.
+    const r = polarisForObservation({
+      totalConcentration: 8, remainingStage: 'new',
+      categories: [{ partialConcentration: 8, stage: 'thick-first-year' }],
+    }, 'PC5');
+    expect(r).toMatchObject({ ok: true, value: { rio: 6 } });
+  });
+
+  it('one category without Sd still takes Ct (egg code: a single ice type leaves Ca blank)', () => {
+    // PC7, Ct 9 thick FY whatever the partial says: 9x(-2) + 1x3 = -15 < -10, special (Table 1.1).
+    const r = polarisForObservation({ totalConcentration: 9, categories: [{ partialConcentration: 5, stage: 'thick-first-year' }] }, 'PC7');
+    expect(r).toMatchObject({ ok: true, value: { rio: -15, outcome: 'special' } });
+  });
+
+  it('two categories + Sd: PC4, Ct 10, 4 second-year + 4 thick FY, Sd grey-white -> 4x0 + 4x1 + 2x3 = 10', () => {
+    const r = polarisForObservation({
+      totalConcentration: 10, remainingStage: 'grey-white',
+      categories: [{ partialConcentration: 4, stage: 'second-year' }, { partialConcentration: 4, stage: 'thick-first-year' }],
+    }, 'PC4');
+    expect(r).toMatchObject({ ok: true, value: { rio: 10, outcome: 'normal' } });
+  });
+
+  it('three categories + Sd: IB, Ct 9, 3 thin FY 2nd stage + 2 grey-white + 2 grey, Sd new -> 3x(-1) + 2x1 + 2x2 + 2x2 + 1x3 = 10', () => {
+    const r = polarisForObservation({
+      totalConcentration: 9, remainingStage: 'new',
+      categories: [
+        { partialConcentration: 3, stage: 'thin-first-year-2' },
+        { partialConcentration: 2, stage: 'grey-white' },
+        { partialConcentration: 2, stage: 'grey' },
+      ],
+    }, 'IB');
+    expect(r).toMatchObject({ ok: true, value: { rio: 10, outcome: 'normal' } });
+  });
+
+  it('Ct less than the sum of the partials: the partials are used, and a note says so', () => {
+    // PC6, Ct 7 but 5 thick FY (-1) + 4 grey (2): 5x(-1) + 4x2 + 1x3 = 6.
+    const r = polarisForObservation({
+      totalConcentration: 7, remainingStage: 'new',
+      categories: [{ partialConcentration: 5, stage: 'thick-first-year' }, { partialConcentration: 4, stage: 'grey' }],
+    }, 'PC6');
+    expect(r).toMatchObject({ ok: true, value: { rio: 6 } });
+    expect(r.ok && r.value.notes.join(' ')).toContain('add up to 9/10, more than the total 7/10');
+  });
+
+  it('a trace (So) adds nothing: Ct 0 with a trace of multi-year is 10/10 ice free, RIO 30', () => {
+    // WMO-No. 259: a trace is less than 1/10; it is not a tenth of the regime.
+    const r = polarisForObservation({ totalConcentration: 0, traceStage: 'multi-year', categories: [] }, 'PC7');
+    expect(r).toMatchObject({ ok: true, value: { rio: 30, outcome: 'normal' } });
+    expect(r.ok && r.value.notes.join(' ')).toContain('trace of multi-year ice (less than 1/10) does not enter the RIO');
+  });
+
+  it('a trace beside one category + Sd: IC, Ct 6, So second-year, 3 grey-white, Sd new -> 3x0 + 3x2 + 4x3 = 18', () => {
+    const r = polarisForObservation({
+      totalConcentration: 6, traceStage: 'second-year', remainingStage: 'new',
+      categories: [{ partialConcentration: 3, stage: 'grey-white' }],
+    }, 'IC');
+    expect(r).toMatchObject({ ok: true, value: { rio: 18, outcome: 'normal' } });
+  });
+});

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { Finding, IceCategory, Observation } from '../../src/domain/model.ts';
+import type { Deformation, Finding, IceCategory, Observation, SnowCover } from '../../src/domain/model.ts';
 import { FINDING_CODES, blocksSaving, checkSequence, sortCategoriesThickestFirst, validateObservation } from '../../src/domain/rules.ts';
 import { cruise, observation } from './fixtures.ts';
 
@@ -7,6 +7,16 @@ const cats = (obs: Observation) => obs.categories;
 const withCat = (i: number, change: Partial<IceCategory>): Observation => {
   const o = observation();
   o.categories = cats(o).map((c, j) => (j === i ? { ...c, ...change } : c));
+  return o;
+};
+const withDeformation = (change: Deformation, over: Partial<Observation> = {}): Observation => {
+  const o = observation(over);
+  o.deformation = { ...o.deformation, a: { ...o.deformation?.a, ...change } };
+  return o;
+};
+const withSnow = (change: SnowCover): Observation => {
+  const o = observation();
+  o.snow = { ...o.snow, a: { ...o.snow?.a, ...change } };
   return o;
 };
 const find = (fs: Finding[], code: string): Finding | undefined => fs.find((f) => f.code === code);
@@ -66,12 +76,12 @@ describe('validateObservation', () => {
     });
     it('partial out of range and partial zero', () => {
       expectFinding(withCat(1, { partialConcentration: 2.5 }), 'partial-out-of-range', 'categories.1.partialConcentration', ['2.5']);
-      expectFinding(withCat(2, { partialConcentration: 0 }), 'partial-zero', 'categories.2.partialConcentration', ['Category 3']);
+      expectFinding(withCat(2, { partialConcentration: 0 }), 'partial-zero', 'categories.2.partialConcentration', ['Ice type c']);
     });
     it('more than three categories is an error', () => {
       const o = observation({ totalConcentration: 10 });
       o.categories = [...cats(o), { partialConcentration: 1, stage: 'new' }];
-      expectFinding(o, 'too-many-categories', 'categories', ['4 ice categories']);
+      expectFinding(o, 'too-many-categories', 'categories', ['4 ice types']);
     });
     it('ice without categories is doubtful', () => {
       expectFinding(observation({ categories: [] }), 'categories-missing', 'categories', ['9/10']);
@@ -135,21 +145,40 @@ describe('validateObservation', () => {
 
   describe('deformation and snow', () => {
     it('ridged and rafted shares', () => {
-      expectFinding(withCat(0, { ridgedTenths: 11 }), 'deformation-share-out-of-range', 'categories.0.ridgedTenths', ['11']);
-      expectFinding(withCat(0, { ridgedTenths: 7, raftedTenths: 4 }), 'deformed-share-exceeds-category', 'categories.0.ridgedTenths', ['7/10', '4/10']);
+      expectFinding(withDeformation({ ridgedTenths: 11 }), 'deformation-share-out-of-range', 'deformation.a.ridgedTenths', ['Ice type a', '11']);
+      expectFinding(withDeformation({ ridgedTenths: 7, raftedTenths: 4 }), 'deformed-share-exceeds-category', 'deformation.a.ridgedTenths', ['7/10', '4/10']);
     });
     it('sail height: negative, deeper than keels reach (Timco and Burden 1997 ratio 4.4), without ridges', () => {
-      expectFinding(withCat(0, { sailHeightM: -1 }), 'sail-height-out-of-range', 'categories.0.sailHeightM', ['-1 m']);
+      expectFinding(withDeformation({ sailHeightM: -1 }), 'sail-height-out-of-range', 'deformation.a.sailHeightM', ['-1 m']);
       // 12 m x 4.4 = 52.8 m keel, beyond about 50 m (common practice).
-      expectFinding(withCat(0, { sailHeightM: 12 }), 'sail-height-implausible', 'categories.0.sailHeightM', ['12 m', '52.8 m']);
-      // Multi-year ratio 3.3: 12 m x 3.3 = 39.6 m, plausible.
-      expect(find(validateObservation(withCat(0, { stage: 'multi-year', thicknessCm: 300, sailHeightM: 12 })), 'sail-height-implausible')).toBeUndefined();
-      expectFinding(withCat(0, { ridgedTenths: 0 }), 'sail-height-without-ridges', 'categories.0.sailHeightM', ['1.2 m']);
+      expectFinding(withDeformation({ sailHeightM: 12 }), 'sail-height-implausible', 'deformation.a.sailHeightM', ['12 m', '52.8 m']);
+      // Multi-year ratio 3.3: 12 m x 3.3 = 39.6 m, plausible. The ratio follows ice type a's stage.
+      const multiYear = withDeformation({ sailHeightM: 12 });
+      multiYear.categories[0] = { ...(multiYear.categories[0] as IceCategory), stage: 'multi-year', thicknessCm: 300 };
+      expect(find(validateObservation(multiYear), 'sail-height-implausible')).toBeUndefined();
+      expectFinding(withDeformation({ ridgedTenths: 0 }), 'sail-height-without-ridges', 'deformation.a.sailHeightM', ['1.2 m']);
     });
     it('snow depth: negative, implausible, with "no snow"', () => {
-      expectFinding(withCat(0, { snowDepthCm: -2 }), 'snow-depth-out-of-range', 'categories.0.snowDepthCm', ['-2 cm']);
-      expectFinding(withCat(0, { snowDepthCm: 200 }), 'snow-depth-implausible', 'categories.0.snowDepthCm', ['200 cm']);
-      expectFinding(withCat(0, { snowKind: 'none' }), 'snow-depth-without-snow', 'categories.0.snowDepthCm', ['15 cm']);
+      expectFinding(withSnow({ depthCm: -2 }), 'snow-depth-out-of-range', 'snow.a.depthCm', ['-2 cm']);
+      expectFinding(withSnow({ depthCm: 200 }), 'snow-depth-implausible', 'snow.a.depthCm', ['200 cm']);
+      expectFinding(withSnow({ cover: 'none', wetness: undefined, crust: undefined }), 'snow-depth-without-snow', 'snow.a.depthCm', ['15 cm']);
+    });
+    it('snow said to be absent but described (common practice: no wetness, crust or drifts without snow)', () => {
+      expectFinding(withSnow({ cover: 'none', depthCm: 0 }), 'snow-described-without-snow', 'snow.a.cover', ['wetness', 'a crust']);
+      const none = validateObservation(withSnow({ cover: 'none', wetness: undefined, crust: undefined, depthCm: 0 }), cruise);
+      expect(find(none, 'snow-described-without-snow')).toBeUndefined();
+    });
+    it('unknown snow terms from a file are errors naming the value', () => {
+      expectFinding(withSnow({ wetness: 'slushy' as SnowCover['wetness'] }), 'snow-term-unknown', 'snow.a.wetness', ['"slushy"']);
+      expectFinding(withSnow({ cover: 'most' as SnowCover['cover'] }), 'snow-term-unknown', 'snow.a.cover', ['"most"']);
+    });
+    it('a group entry for an ice type the observation does not have is an error', () => {
+      const o = observation();
+      o.categories = o.categories.slice(0, 1);
+      expectFinding(o, 'group-without-ice-type', 'snow.b', ['ice type b']);
+      const d = observation({ deformation: { c: { ridgedTenths: 1 } } });
+      d.categories = d.categories.slice(0, 2);
+      expectFinding(d, 'group-without-ice-type', 'deformation.c', ['ice type c']);
     });
   });
 
@@ -169,6 +198,18 @@ describe('validateObservation', () => {
     });
   });
 
+  describe('remaining stage (Sd) with no share', () => {
+    // WMO-No. 259 (egg code): Sd is the stage of the ice the partial concentrations leave of Ct.
+    it('fires when the partials already make up Ct', () => {
+      const o = observation({ totalConcentration: 8, remainingStage: 'new', categories: [{ partialConcentration: 8, stage: 'thick-first-year' }] });
+      expectFinding(o, 'remaining-without-share', 'remainingStage', ['new ice', 'total 8/10']);
+    });
+    it('does not fire when Sd has the rest (Ct 9, Ca 5)', () => {
+      const o = observation({ totalConcentration: 9, remainingStage: 'grey', categories: [{ partialConcentration: 5, stage: 'thick-first-year' }] });
+      expect(find(validateObservation(o, cruise), 'remaining-without-share')).toBeUndefined();
+    });
+  });
+
   describe('weather', () => {
     const weather = (w: Partial<NonNullable<Observation['weather']>>) => observation({ weather: { ...observation().weather, ...w } });
     it('water below the UNESCO 1983 freezing point: -1.87 °C at S = 34.2 (UNESCO 1983 formula)', () => {
@@ -180,19 +221,60 @@ describe('validateObservation', () => {
       expectFinding(weather({ salinityPsu: undefined, waterTempC: -2.0 }), 'water-below-freezing', 'weather.waterTempC', ['-1.92 °C', 'salinity 35 assumed']);
       expect(find(validateObservation(weather({ salinityPsu: undefined, waterTempC: -1.9 })), 'water-below-freezing')).toBeUndefined();
     });
-    it('impossible water temperature, salinity, air temperature', () => {
-      expectFinding(weather({ waterTempC: -5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-5 °C']);
-      expectFinding(weather({ salinityPsu: 60 }), 'salinity-out-of-range', 'weather.salinityPsu', ['60']);
-      expectFinding(weather({ salinityPsu: 2 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['2', '4-40']);
+    const codesOf = (w: Partial<NonNullable<Observation['weather']>>) => validateObservation(weather(w), cruise).map((f) => f.code);
+
+    it('air temperature beyond the world records is impossible (WMO Archive of Weather and Climate Extremes)', () => {
+      // WMO archive: lowest -89.2 °C (Vostok, 21 July 1983), highest 56.7 °C (Furnace Creek,
+      // 10 July 1913); the rule's bounds -90 and 57 sit just outside them.
       expectFinding(weather({ airTempC: -95 }), 'air-temp-out-of-range', 'weather.airTempC', ['-95 °C']);
-      expectFinding(weather({ airTempC: 30 }), 'air-temp-doubtful', 'weather.airTempC', ['30 °C']);
+      expectFinding(weather({ airTempC: -90.1 }), 'air-temp-out-of-range', 'weather.airTempC', ['-90.1 °C', 'recorded on Earth']);
+      expectFinding(weather({ airTempC: 57.1 }), 'air-temp-out-of-range', 'weather.airTempC', ['57.1 °C']);
+      expect(codesOf({ airTempC: -89.2 })).not.toContain('air-temp-out-of-range');
+      expect(codesOf({ airTempC: 56.7 })).not.toContain('air-temp-out-of-range');
     });
-    it('wind, visibility, cloud', () => {
+    it('air temperature below -60 °C or above 25 °C at sea in polar waters is doubtful (common practice, our own bounds)', () => {
+      expectFinding(weather({ airTempC: 30 }), 'air-temp-doubtful', 'weather.airTempC', ['30 °C', 'check the sign and unit']);
+      expectFinding(weather({ airTempC: -60.5 }), 'air-temp-doubtful', 'weather.airTempC', ['-60.5 °C']);
+      expect(codesOf({ airTempC: -60 })).not.toContain('air-temp-doubtful');
+      expect(codesOf({ airTempC: 25 })).not.toContain('air-temp-doubtful');
+    });
+    it('water temperature outside -3..40 °C is impossible at the sea surface', () => {
+      // Lower bound: below the freezing point of any sea water the UNESCO 1983 formula covers,
+      // Tf(S = 40, p = 0) = -0.0575x40 + 1.710523e-3x40^1.5 - 2.154996e-4x40^2 = -2.21 °C.
+      // Upper bound: above the warmest sea surfaces, about 35-36 °C in summer in the Persian Gulf
+      // (from memory).
+      expectFinding(weather({ waterTempC: -5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-5 °C', '-3 to 40 °C']);
+      expectFinding(weather({ waterTempC: -3.1 }), 'water-temp-out-of-range', 'weather.waterTempC', ['-3.1 °C']);
+      expectFinding(weather({ waterTempC: 40.5 }), 'water-temp-out-of-range', 'weather.waterTempC', ['40.5 °C']);
+      expect(codesOf({ waterTempC: -2.9 })).not.toContain('water-temp-out-of-range');
+      expect(codesOf({ waterTempC: 36 })).not.toContain('water-temp-out-of-range');
+    });
+    it('salinity outside 0-50 is refused (common practice: open-ocean surface water is about 32-37)', () => {
+      expectFinding(weather({ salinityPsu: 60 }), 'salinity-out-of-range', 'weather.salinityPsu', ['60', '0 to 50']);
+      expectFinding(weather({ salinityPsu: -0.5 }), 'salinity-out-of-range', 'weather.salinityPsu', ['-0.5']);
+      expect(codesOf({ salinityPsu: 50 })).not.toContain('salinity-out-of-range');
+    });
+    it('salinity outside 4-40, the range of the UNESCO 1983 freezing-point formula (Fofonoff and Millard 1983), is flagged', () => {
+      expectFinding(weather({ salinityPsu: 2 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['2', '4-40', 'UNESCO 1983']);
+      expectFinding(weather({ salinityPsu: 40.5 }), 'salinity-outside-formula-range', 'weather.salinityPsu', ['40.5']);
+      expect(codesOf({ salinityPsu: 4 })).not.toContain('salinity-outside-formula-range');
+      expect(codesOf({ salinityPsu: 40 })).not.toContain('salinity-outside-formula-range');
+    });
+    it('wind: negative speed is impossible; above 120 kn, far beyond force 12 (64 kn and more, Beaufort scale), doubtful', () => {
+      // The 120 kn bound is our own (common practice): a mean wind that far above hurricane force
+      // is more likely km/h or m/s typed as knots.
       expectFinding(weather({ windSpeedKn: -1 }), 'wind-out-of-range', 'weather.windSpeedKn', ['-1 kn']);
-      expectFinding(weather({ windSpeedKn: 150 }), 'wind-doubtful', 'weather.windSpeedKn', ['150 kn']);
+      expectFinding(weather({ windSpeedKn: 150 }), 'wind-doubtful', 'weather.windSpeedKn', ['150 kn', '64 kn']);
+      expectFinding(weather({ windSpeedKn: 120.5 }), 'wind-doubtful', 'weather.windSpeedKn', ['120.5 kn']);
+      expect(codesOf({ windSpeedKn: 120 })).not.toContain('wind-doubtful');
+      expect(codesOf({ windSpeedKn: 0 })).toEqual([]);
+    });
+    it('wind direction outside 0-360° true, negative visibility, cloud over 8 oktas (WMO-No. 306 code table 2700: 0-8 oktas)', () => {
       expectFinding(weather({ windFromDeg: 400 }), 'wind-out-of-range', 'weather.windFromDeg', ['400°']);
+      expect(codesOf({ windFromDeg: 360 })).toEqual([]);
       expectFinding(weather({ visibilityKm: -1 }), 'visibility-out-of-range', 'weather.visibilityKm', ['-1 km']);
       expectFinding(weather({ cloudOktas: 9 }), 'cloud-out-of-range', 'weather.cloudOktas', ['9']);
+      expect(codesOf({ cloudOktas: 8 })).toEqual([]);
     });
   });
 

@@ -3,15 +3,18 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { makeDemoCruise } from '../../src/domain/demo.ts';
-import { STAGE_KEYS, type IceCategory } from '../../src/domain/model.ts';
+import { deformationOf } from '../../src/domain/iceTypes.ts';
+import { STAGE_KEYS, type Deformation, type IceCategory } from '../../src/domain/model.ts';
 import { equivalentThickness } from '../../src/domain/ridges.ts';
 import { equivalentThicknessCm } from '../../src/domain/stats.ts';
 
-const ref = (c: IceCategory): number | null => equivalentThickness(c)?.equivalentCm ?? null;
+const ref = (c: IceCategory, d: Deformation | undefined): number | null => equivalentThickness({ ...c, ...d })?.equivalentCm ?? null;
 
 describe('lean equivalent thickness', () => {
   it('equals equivalentThickness on every demo category', () => {
-    for (const o of makeDemoCruise().observations) for (const c of o.categories) expect(equivalentThicknessCm(c)).toBe(ref(c));
+    for (const o of makeDemoCruise().observations) {
+      o.categories.forEach((c, i) => expect(equivalentThicknessCm(c, deformationOf(o, i))).toBe(ref(c, deformationOf(o, i))));
+    }
   });
 
   it('equals equivalentThickness on random categories (fast-check)', () => {
@@ -22,12 +25,17 @@ describe('lean equivalent thickness', () => {
           partialConcentration: fc.integer({ min: 0, max: 10 }),
           stage: fc.constantFrom(...STAGE_KEYS),
           thicknessCm: opt(fc.double({ min: -10, max: 500, noNaN: true })),
-          ridgedTenths: opt(fc.integer({ min: -1, max: 11 })),
-          raftedTenths: opt(fc.integer({ min: -1, max: 11 })),
-          sailHeightM: opt(fc.double({ min: -1, max: 8, noNaN: true })),
         }) as fc.Arbitrary<IceCategory>,
-        (c) => {
-          expect(equivalentThicknessCm(c)).toBe(ref(c));
+        fc.option(
+          fc.record({
+            ridgedTenths: opt(fc.integer({ min: -1, max: 11 })),
+            raftedTenths: opt(fc.integer({ min: -1, max: 11 })),
+            sailHeightM: opt(fc.double({ min: -1, max: 8, noNaN: true })),
+          }) as fc.Arbitrary<Deformation>,
+          { nil: undefined },
+        ),
+        (c, d) => {
+          expect(equivalentThicknessCm(c, d)).toBe(ref(c, d));
         },
       ),
       { numRuns: 5000, seed: 3 },

@@ -12,6 +12,12 @@ function reference(obs: Parameters<typeof polarisForObservation>[0], iceClass: (
   return r.ok ? { rio: r.value.rio, outcome: r.value.outcome } : null;
 }
 
+const categoryArb = (minPartial: number): fc.Arbitrary<IceCategory> => fc.record({
+  partialConcentration: fc.integer({ min: minPartial, max: 10 }),
+  stage: fc.constantFrom(...STAGE_KEYS),
+  thicknessCm: fc.option(fc.integer({ min: 0, max: 400 }), { nil: undefined }),
+}) as fc.Arbitrary<IceCategory>;
+
 describe('lean RIO', () => {
   it('equals polarisForObservation on every demo observation for every ice class', () => {
     const demo = makeDemoCruise();
@@ -21,23 +27,38 @@ describe('lean RIO', () => {
   });
 
   it('equals polarisForObservation on random observations (fast-check)', () => {
-    const category = fc.record({
-      partialConcentration: fc.integer({ min: -1, max: 10 }),
-      stage: fc.constantFrom(...STAGE_KEYS),
-      thicknessCm: fc.option(fc.integer({ min: 0, max: 400 }), { nil: undefined }),
-    }) as fc.Arbitrary<IceCategory>;
+    const category = categoryArb(-1);
     fc.assert(
       fc.property(
         fc.option(fc.integer({ min: 0, max: 10 }), { nil: null }),
-        fc.array(category, { maxLength: 3 }),
+        // Up to four categories: a fourth reaches POLARIS only from data the rules refuse.
+        fc.array(category, { maxLength: 4 }),
+        fc.option(fc.constantFrom(...STAGE_KEYS), { nil: undefined }),
         fc.option(fc.constantFrom(...STAGE_KEYS), { nil: undefined }),
         fc.constantFrom(...VESSEL_ICE_CLASSES),
-        (totalConcentration, categories, remainingStage, iceClass) => {
-          const obs = { totalConcentration, categories, remainingStage };
+        (totalConcentration, categories, remainingStage, traceStage, iceClass) => {
+          const obs = { totalConcentration, categories, remainingStage, traceStage };
           expect(rioForObservation(obs, iceClass)).toEqual(reference(obs, iceClass));
         },
       ),
       { numRuns: 4000, seed: 11 },
+    );
+  });
+
+  it('equals polarisForObservation for one category with a remaining stage (Sd), the case of issue 11', () => {
+    const category = categoryArb(1);
+    fc.assert(
+      fc.property(
+        fc.option(fc.integer({ min: 0, max: 10 }), { nil: null }),
+        category,
+        fc.constantFrom(...STAGE_KEYS),
+        fc.constantFrom(...VESSEL_ICE_CLASSES),
+        (totalConcentration, c, remainingStage, iceClass) => {
+          const obs = { totalConcentration, categories: [c], remainingStage };
+          expect(rioForObservation(obs, iceClass)).toEqual(reference(obs, iceClass));
+        },
+      ),
+      { numRuns: 2000, seed: 12 },
     );
   });
 });

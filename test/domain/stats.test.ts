@@ -61,9 +61,9 @@ describe('a four-observation log, hand-computed', () => {
   const o1 = obs(0, 'A', 0, [], 69.9, { weather: { airTempC: -5, waterTempC: 0.5 } });
   const o2 = obs(1, 'A', 3, [{ partialConcentration: 0, stage: 'grey', thicknessCm: 12 }], 70.0, { weather: { airTempC: -6 } });
   const o3 = obs(2, 'B', 9, [
-    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150, ridgedTenths: 2, sailHeightM: 1 },
-    { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20, ridgedTenths: 0 },
-  ], 70.6);
+    { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 150 },
+    { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20 },
+  ], 70.6, { deformation: { a: { ridgedTenths: 2, sailHeightM: 1 }, b: { ridgedTenths: 0 } } });
   const o4 = obs(5, 'B', 10, [{ partialConcentration: 10, stage: 'medium-first-year', thicknessCm: 110 }], 71.2);
   const deleted = obs(3, 'A', 10, [], 80, { deleted: true });
   // Given out of order, with a deleted observation that must not count.
@@ -191,7 +191,7 @@ describe('a four-observation log, hand-computed', () => {
 
   it('uses the ridge estimate when given one', () => {
     // A stand-in estimate: level thickness plus 10 cm for each tenth ridged (test only).
-    const withRidges = reviewCruise({ ...input, ridgeEstimate: (c) => (c.thicknessCm === undefined ? null : c.thicknessCm + 10 * (c.ridgedTenths ?? 0)) });
+    const withRidges = reviewCruise({ ...input, ridgeEstimate: (c, d) => (c.thicknessCm === undefined ? null : c.thicknessCm + 10 * (d?.ridgedTenths ?? 0)) });
     // Σ w h' = 2096 + 6 * 20 = 2216 over 22.
     expect(withRidges.summary.ice.meanThicknessWithRidgesCm).toBeCloseTo(2216 / 22, 10);
   });

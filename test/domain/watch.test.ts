@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { formatCountdown, groupMissed, missedSlotsBetween, slotOf, watchStatus } from '../../src/domain/watch';
+import { formatCountdown, groupMissed, missedRunText, missedSlotsBetween, readUtcMinute, slotOf, watchStatus } from '../../src/domain/watch';
 
-// Hourly observations on the full hour from the bridge: common practice (e.g. the ASPeCt
-// protocol, Worby and Allison 1999, observes hourly). The due/overdue margins are our own.
+// Hourly observations on the full hour from the bridge: common practice, no source (WMO-No. 259
+// names what is observed, not how often). The due/overdue margins are our own.
 const t = (iso: string) => Date.parse(iso);
 
 describe('slotOf', () => {
@@ -129,5 +129,52 @@ describe('formatCountdown', () => {
   it('shows minutes and seconds under an hour and hours and minutes above', () => {
     expect(formatCountdown(12 * 60_000 + 5000)).toBe('in 12 min 05 s');
     expect(formatCountdown(-(63 * 60_000))).toBe('1 h 03 min ago');
+  });
+});
+
+// The cruise's end and runs across midnight: our own rules for the watch (no source; the hourly
+// watch itself is common practice, see above).
+describe('the watch after the cruise ends', () => {
+  const opts = { intervalMinutes: 60, endTime: '2026-12-02T12:00:00Z' };
+  const hourly = (from: string, n: number) => Array.from({ length: n }, (_, i) => new Date(t(from) + i * 3_600_000).toISOString());
+
+  it('is ended from the end time on: nothing due, and no missed hour after the end', () => {
+    const times = hourly('2026-12-02T00:00:00Z', 6); // 00:00 to 05:00, then nothing
+    const before = watchStatus(t('2026-12-02T10:20:00Z'), times, opts);
+    expect(before.state).toBe('overdue');
+    expect(before.missed).toContain('2026-12-02T09:00:00Z');
+    const after = watchStatus(t('2026-12-02T16:20:00Z'), times, opts);
+    expect(after.state).toBe('ended');
+    // Slots 06:00 to 11:00 were owed (their windows closed before 12:00); 12:00 on are not.
+    expect(after.missed[0]).toBe('2026-12-02T06:00:00Z');
+    expect(after.missed[after.missed.length - 1]).toBe('2026-12-02T11:00:00Z');
+  });
+
+  it('a cruise with no end keeps calling', () => {
+    expect(watchStatus(t('2026-12-02T16:58:00Z'), hourly('2026-12-02T00:00:00Z', 16), { intervalMinutes: 60 }).state).toBe('due');
+  });
+});
+
+describe('missedRunText', () => {
+  it('names both dates when a run crosses midnight', () => {
+    const slots = Array.from({ length: 23 }, (_, i) => t('2026-12-01T19:00:00Z') + i * 3_600_000);
+    const [run] = groupMissed(slots, 60);
+    expect(run && missedRunText(run)).toBe('19:00 on 2026-12-01 to 17:00 on 2026-12-02 UTC (23 observations)');
+  });
+
+  it('gives one date for a run within a day, and a single slot alone', () => {
+    const runs = groupMissed([t('2026-12-01T03:00:00Z'), t('2026-12-01T04:00:00Z'), t('2026-12-01T09:00:00Z')], 60);
+    expect(runs.map(missedRunText)).toEqual(['03:00\u201304:00 UTC on 2026-12-01 (2 observations)', '09:00 UTC on 2026-12-01']);
+  });
+});
+
+describe('readUtcMinute', () => {
+  it('reads YYYY-MM-DD HH:MM as UTC and refuses what is not a real time', () => {
+    expect(readUtcMinute('2026-12-20 08:00')).toEqual({ ok: true, value: '2026-12-20T08:00:00Z' });
+    expect(readUtcMinute('2026-12-20T08:00Z')).toEqual({ ok: true, value: '2026-12-20T08:00:00Z' });
+    const bad = readUtcMinute('2026-02-30 08:00');
+    expect(bad.ok).toBe(false);
+    expect(!bad.ok && bad.error).toContain('2026-02-30 08:00');
+    expect(readUtcMinute('tomorrow').ok).toBe(false);
   });
 });

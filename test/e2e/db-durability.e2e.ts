@@ -1,6 +1,9 @@
 // The store in real Chromium with a persistent profile: what was reported saved survives a
 // browser crash; a bulk write is found batch by batch, all or nothing; a full disk is refused
 // cleanly. The page runs the real src/db module (see test/e2e/harness/db-page.ts for why).
+// The kills are SIGKILLs of the browser: they prove commits are atomic and complete across a
+// process crash, not across a power cut (the OS page cache survives; see
+// reliability-durability.e2e.ts for the durability the app asks for).
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';

@@ -37,7 +37,7 @@ function snapshot(p: Page) {
       cruises: await d.cruises.toArray(),
       observations: await d.observations.toArray(),
       revisions: await d.revisions.toArray(),
-      trackPoints: await d.trackPoints.count(),
+      trackPoints: (await d.trackChunks.toArray()).reduce((n, c) => n + c.count, 0),
       photos: (await d.photos.toArray()).map((ph) => ({ ...ph, blob: [ph.blob.size, ph.blob.type] })),
       drafts: await d.drafts.toArray(),
     };

@@ -85,26 +85,27 @@ describe('the watch log in Chromium', () => {
     expect(await focusedLabel(page)).toBe('Total concentration Ct, tenths');
     await k.type('9'); // Ct, moves on
     await k.type('5'); // Ca, moves on to Sa
+    // Each ice type in the egg code's order (WMO-No. 259): concentration, stage, form, thickness.
     await k.type('thick');
-    await k.press('Tab');
-    await k.type('150');
     await k.press('Tab');
     await k.type('big');
     await k.press('Tab');
+    await k.type('150');
+    await k.press('Tab'); // on to the deformation rows, a group of their own
+    expect(await focusedLabel(page)).toBe('Ridged (a), tenths');
     await k.type('3'); // ridged share, moves on to rafted
     await k.press('Alt+a');
     expect(await focusedLabel(page)).toBe('Concentration Cb, tenths');
     await k.type('3medium');
     await k.press('Tab');
-    await k.type('90');
-    await k.press('Tab');
     await k.type('medium f');
     await k.press('Tab');
+    await k.type('90');
     await k.press('Alt+a');
     await k.type('1');
-    await k.press('Tab');
+    await k.press('Tab'); // "1" waits for a "0" (10/10); Tab keeps 1/10
     await k.type('grey w');
-    await k.press('Tab');
+    await k.press('Tab', 'Tab'); // form Fc left blank
     await k.type('20');
     await k.press('Enter');
     await page.getByText(/Saved: the .* UTC observation, revision 1\./).waitFor({ timeout: 15_000 });
@@ -144,18 +145,19 @@ describe('the watch log in Chromium', () => {
     await page.waitForFunction(() => (document.getElementById('f-total') as HTMLInputElement | null)?.value === '9');
     expect(await focusedLabel(page)).toBe('Total concentration Ct, tenths');
     await k.type('8'); // Ct 9 -> 8
+    expect(await page.getByLabel('Ridged (a), tenths').inputValue()).toBe('3'); // deformation carried over
     await k.type('4'); // Ca 5 -> 4, now on Sa (unchanged)
-    await k.press('Tab');
+    await k.press('Tab', 'Tab'); // past Sa and Fa (unchanged)
     await k.type('160'); // thickness a
     await k.press('PageDown'); // to ice type b
     await k.type('3'); // Cb unchanged value retyped, on to Sb
-    await k.press('Tab');
+    await k.press('Tab', 'Tab');
     await k.type('100'); // thickness b
     await k.press('PageDown'); // to ice type c
     await k.type('1');
     await k.press('Tab');
     await k.type('grey'); // Sc grey-white -> grey
-    await k.press('Tab');
+    await k.press('Tab', 'Tab');
     await k.type('12'); // thickness c
     await k.press('Enter');
     await page.getByText(/Saved: the .* UTC observation, revision 1\./).waitFor({ timeout: 15_000 });

@@ -93,7 +93,15 @@ describe('offline: app update only with the observer’s agreement', () => {
     await other.getByRole('heading', { name: 'Floe Ledger' }).waitFor();
     expect(await buildOf(other)).toBe(firstBuild);
 
-    await Promise.all([page.waitForEvent('load'), page.getByRole('button', { name: 'Update now' }).click()]);
+    // The app falls back to the banner with a reason when the new worker does not take over;
+    // wait for either outcome so that a failure says which it was instead of a bare timeout.
+    const loaded = page.waitForEvent('load', { timeout: 60_000 }).then(() => 'loaded');
+    const refused = page
+      .locator('[data-testid="update-banner"][data-phase="waiting"] .update-banner-error')
+      .waitFor({ timeout: 60_000 })
+      .then(async () => `refused: ${await page.getByTestId('update-banner').innerText()}`);
+    await page.getByRole('button', { name: 'Update now' }).click();
+    expect(await Promise.race([loaded, refused.catch(() => new Promise<string>(() => undefined))])).toBe('loaded');
     await page.getByRole('heading', { name: 'Floe Ledger' }).waitFor();
     expect(await buildOf(page)).toBe(NEXT_BUILD);
     await waitForPhase(page, 'updated');

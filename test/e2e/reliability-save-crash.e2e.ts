@@ -2,6 +2,10 @@
 // one observation into the built app's watch log, saves it with Enter, and SIGKILLs the browser
 // the moment the form shows it as saved; the relaunch on the same profile must find every
 // observation ever shown as saved, both in the list on screen and in the database.
+// What it proves: a save shown as done was committed, and survives the browser process dying.
+// What it does not: survival of a power cut. SIGKILL keeps the operating system's page cache, so
+// this passes with relaxed durability too; reliability-durability.e2e.ts checks that the app asks
+// for strict durability (docs/dev/offline.md, "What the crash tests prove").
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';

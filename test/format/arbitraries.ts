@@ -5,11 +5,15 @@ import {
   FLOE_SIZE_KEYS,
   OPEN_WATER_KINDS,
   POSITION_SOURCES,
-  SNOW_KINDS,
+  SNOW_COVERS,
+  SNOW_WETNESS_CLASSES,
   STAGE_KEYS,
   VESSEL_ICE_CLASSES,
   type Cruise,
+  type Deformation,
   type IceCategory,
+  type PerIceType,
+  type SnowCover,
   type Observation,
   type TrackPoint,
 } from '../../src/domain/model';
@@ -30,15 +34,37 @@ export const arbCategory: fc.Arbitrary<IceCategory> = fc
   .record({
     partialConcentration: fc.integer({ min: 0, max: 10 }),
     stage: fc.constantFrom(...STAGE_KEYS),
-    thicknessCm: opt(dbl(0, 3000)),
     floeSize: opt(fc.constantFrom(...FLOE_SIZE_KEYS)),
-    ridgedTenths: opt(fc.integer({ min: 0, max: 10 })),
-    raftedTenths: opt(fc.integer({ min: 0, max: 10 })),
-    sailHeightM: opt(dbl(0, 30)),
-    snowKind: opt(fc.constantFrom(...SNOW_KINDS)),
-    snowDepthCm: opt(dbl(0, 500)),
+    thicknessCm: opt(dbl(0, 3000)),
   })
   .map(clean);
+
+const arbDeformation: fc.Arbitrary<Deformation> = fc
+  .record({ ridgedTenths: opt(fc.integer({ min: 0, max: 10 })), raftedTenths: opt(fc.integer({ min: 0, max: 10 })), sailHeightM: opt(dbl(0, 30)) })
+  .map(clean);
+
+const arbSnow: fc.Arbitrary<SnowCover> = fc
+  .record({
+    cover: opt(fc.constantFrom(...SNOW_COVERS)),
+    wetness: opt(fc.constantFrom(...SNOW_WETNESS_CLASSES)),
+    crust: opt(fc.boolean()),
+    drifts: opt(fc.boolean()),
+    depthCm: opt(dbl(0, 500)),
+  })
+  .map(clean);
+
+const arbGroup = <T extends object>(entry: fc.Arbitrary<T>) => opt(fc.record({ a: opt(entry), b: opt(entry), c: opt(entry) }));
+
+/** A group as an observation holds it: only letters of its ice types, no empty entries, no empty group. */
+function trimGroup<T extends object>(g: PerIceType<T> | undefined, count: number): PerIceType<T> | undefined {
+  if (!g) return undefined;
+  const out: PerIceType<T> = {};
+  (['a', 'b', 'c'] as const).forEach((l, i) => {
+    const e = g[l];
+    if (i < count && e && Object.keys(e).length > 0) out[l] = e;
+  });
+  return Object.keys(out).length > 0 ? out : undefined;
+}
 
 function arbObservation(cruiseId: string, observerIds: string[]): fc.Arbitrary<Observation> {
   return fc
@@ -63,6 +89,8 @@ function arbObservation(cruiseId: string, observerIds: string[]): fc.Arbitrary<O
       categories: fc.array(arbCategory, { maxLength: 3 }),
       traceStage: opt(fc.constantFrom(...STAGE_KEYS)),
       remainingStage: opt(fc.constantFrom(...STAGE_KEYS)),
+      deformation: arbGroup(arbDeformation),
+      snow: arbGroup(arbSnow),
       openWater: opt(fc.record({ kind: fc.constantFrom(...OPEN_WATER_KINDS), widthM: opt(dbl(0, 5000)), orientationDeg: opt(dbl(0, 180)) }).map(clean)),
       meltPonds: opt(fc.record({ coverTenths: fc.integer({ min: 0, max: 10 }), state: opt(fc.constantFrom('open' as const, 'frozen' as const, 'drained' as const)) }).map(clean)),
       icebergs: opt(fc.record({ icebergs: fc.nat(50), bergyBits: fc.nat(50), growlers: fc.nat(50) })),
@@ -87,7 +115,7 @@ function arbObservation(cruiseId: string, observerIds: string[]): fc.Arbitrary<O
       deviceId: arbId,
       deleted: fc.boolean(),
     })
-    .map(clean);
+    .map((o) => clean({ ...o, deformation: trimGroup(o.deformation, o.categories.length), snow: trimGroup(o.snow, o.categories.length) }));
 }
 
 /** A random valid bundle; history revisions lie below the current one, ids are unique. */
@@ -187,10 +215,12 @@ export function sampleBundle(): LogBundle {
     observerId: 'obs-a',
     totalConcentration: 9,
     categories: [
-      { partialConcentration: 6, stage: 'thick-first-year', thicknessCm: 140, floeSize: 'big-floe', ridgedTenths: 2, sailHeightM: 1.5, snowKind: 'wind-packed', snowDepthCm: 20 },
-      { partialConcentration: 3, stage: 'grey-white', thicknessCm: 20, floeSize: 'pancake' },
+      { partialConcentration: 6, stage: 'thick-first-year', floeSize: 'big-floe', thicknessCm: 140 },
+      { partialConcentration: 3, stage: 'grey-white', floeSize: 'pancake', thicknessCm: 20 },
     ],
     traceStage: 'multi-year',
+    deformation: { a: { ridgedTenths: 2, sailHeightM: 1.5 } },
+    snow: { a: { cover: 'complete', wetness: 'dry', crust: true, depthCm: 20 }, b: { cover: 'none' } },
     weather: { airTempC: -12.5, waterTempC: -1.8, windSpeedKn: 14, windFromDeg: 270, visibilityKm: 10 },
     notes: 'Leads to the north, "refrozen"; =SUM(A1)',
     photoIds: ['ph-1'],
@@ -218,6 +248,8 @@ export function sampleBundle(): LogBundle {
   };
   delete second.traceStage;
   delete second.weather;
+  delete second.deformation;
+  delete second.snow;
   const history: Observation[] = [
     {
       ...base,

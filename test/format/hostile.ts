@@ -3,7 +3,7 @@
 // truncation, bad versions, inconsistent codes and references. Built from a valid file by
 // mutations that are each invalid for every field they touch, so no case is accidentally valid.
 import { encodeLog, writeLogJson } from '../../src/format/encode';
-import type { LogFileV1 } from '../../src/format/types';
+import type { LogFileV2 } from '../../src/format/types';
 import { sampleBundle } from './arbitraries';
 
 export interface HostileCase {
@@ -13,8 +13,19 @@ export interface HostileCase {
 
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
 
-function validFile(): LogFileV1 {
+function validFile(): LogFileV2 {
   return encodeLog(sampleBundle(), { exportedAt: '2026-04-01T00:00:00Z' });
+}
+
+/**
+ * A version-1 log whose track holds `rows` rows, each with exactly one schema error (latitude
+ * 95), or all valid (latitude 75) when `valid` is set: the error-dense file of issue 16.
+ */
+export function errorDenseLog(rows: number, valid = false): Record<string, unknown> {
+  const file = validFile() as unknown as Record<string, unknown>;
+  const t0 = Date.UTC(2026, 2, 1);
+  const points = Array.from({ length: rows }, (_, i) => [new Date(t0 + i * 1000).toISOString().replace('.000', ''), valid ? 75 : 95, 10, 'gps-serial', null, null, null]);
+  return { ...file, track: { ...(file.track as object), points } };
 }
 
 export function validText(): string {
@@ -132,7 +143,14 @@ export function hostileCases(): HostileCase[] {
     ['track row too short', ['track', 'points', 0], ['2026-03-02T09:00:00Z', 78, 10]],
     ['track row too long', ['track', 'points', 0], ['2026-03-02T09:00:00Z', 78, 10, 'manual', null, null, null, 'extra']],
     ['unit changed', ['units', 'thickness'], 'inches'],
-    ['version 2', ['formatVersion'], 2],
+    ['version 3', ['formatVersion'], 3],
+    ['a version-2 file labelled version 1 (groups unknown to version 1)', ['formatVersion'], 1],
+    ['snow wetness not a class of Fierz et al. 2009', [...o, 'snow', 'a', 'wetness'], 'slushy'],
+    ['snow crust as text', [...o, 'snow', 'a', 'crust'], 'yes'],
+    ['empty snow entry', [...o, 'snow', 'a'], {}],
+    ['deformation of ice type d', [...o, 'deformation', 'd'], { ridgedTenths: 1 }],
+    ['ridged share of 11 tenths', [...o, 'deformation', 'a', 'ridgedTenths'], 11],
+    ['old snow kind inside a version-2 ice type', [...o, 'categories', 0, 'snowKind'], 'wet'],
     ['version -1', ['formatVersion'], -1],
     ['version 1.5', ['formatVersion'], 1.5],
     ['version as text', ['formatVersion'], '1'],

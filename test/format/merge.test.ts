@@ -21,6 +21,15 @@ describe('merge planning', { timeout: 120_000 }, () => {
     expect(plan.addHistory).toHaveLength(1);
   });
 
+  it("keeps the stored cruise's end time, a local setting the file does not carry", () => {
+    const local = stored();
+    local.cruise = { ...local.cruise, endTime: '2026-03-05T12:00:00Z' };
+    const incoming = sampleBundle();
+    incoming.cruise = { ...incoming.cruise, name: 'Renamed later', updatedAt: '2099-01-01T00:00:00Z' };
+    const plan = planMerge(bundleTarget(local), incoming);
+    expect(plan.cruise.value).toMatchObject({ name: 'Renamed later', endTime: '2026-03-05T12:00:00Z' });
+  });
+
   it('the same file again: everything identical, nothing to write', () => {
     const plan = planMerge(bundleTarget(stored()), sampleBundle());
     expect(plan.counts).toMatchObject({ new: 0, identical: 2, newer: 0, older: 0, conflict: 0, trackNew: 0, trackDuplicate: 3, photosNew: 0, photosDuplicate: 1 });
@@ -42,16 +51,44 @@ describe('merge planning', { timeout: 120_000 }, () => {
     expect(after.history.filter((h) => h.id === 'o-2')).toHaveLength(1);
   });
 
-  it('an older revision that is not stored is kept as history, the current one stays', () => {
+  it('an older revision that is not stored is kept as history when the file shows it precedes the stored one', () => {
     const s = stored();
     s.history = []; // this laptop never had revision 1 of o-1
+    const incoming = sampleBundle(); // revision 2 (as stored) with revision 1 in its history
+    const plan = planMerge(bundleTarget(s), incoming);
+    expect(plan.items.find((i) => i.id === 'o-1')).toMatchObject({ kind: 'older', incomingRevision: 2, storedRevision: 2 });
+    expect(plan.putCurrent).toEqual([]);
+    expect(plan.addHistory).toEqual([incoming.history[0]]);
+  });
+
+  it('issue 16: an older revision alone, from a file holding none of the later stored versions, is a conflict', () => {
+    const s = stored();
+    s.history = [];
     const incoming = sampleBundle();
     incoming.observations = [incoming.history[0] as Observation];
     incoming.history = [];
     const plan = planMerge(bundleTarget(s), incoming);
-    expect(plan.items).toMatchObject([{ id: 'o-1', kind: 'older', incomingRevision: 1, storedRevision: 2 }]);
+    expect(plan.items).toMatchObject([{ id: 'o-1', kind: 'conflict', incomingRevision: 1, storedRevision: 2 }]);
     expect(plan.putCurrent).toEqual([]);
-    expect(plan.addHistory).toHaveLength(1);
+    expect(plan.addConflicts).toEqual([incoming.observations[0]]);
+  });
+
+  it('issue 16: a deletion at revision 2 against an edit at revision 3 made apart is a conflict in either direction', () => {
+    const base = sampleBundle();
+    const o2 = base.observations[1] as Observation; // revision 1
+    const deleted: LogBundle = { ...sampleBundle(), observations: [base.observations[0] as Observation, edit(o2, { revision: 2, deleted: true, savedAt: '2026-03-02T10:00:00Z' })], history: [...base.history, o2] };
+    // The other laptop's revision 3, whose file has no revision 2: nothing shows it follows the deletion.
+    const edited: LogBundle = { ...sampleBundle(), observations: [base.observations[0] as Observation, edit(o2, { revision: 3, notes: 'edited apart', savedAt: '2026-03-02T11:00:00Z' })], history: [...base.history, o2] };
+    const a = planMerge(bundleTarget(deleted), edited);
+    expect(a.items.find((i) => i.id === o2.id)?.kind).toBe('conflict');
+    expect(a.putCurrent).toEqual([]);
+    expect(a.addConflicts.map((c) => c.revision)).toEqual([3]);
+    const b = planMerge(bundleTarget(edited), deleted);
+    expect(b.items.find((i) => i.id === o2.id)?.kind).toBe('conflict');
+    expect(b.addConflicts.map((c) => c.revision)).toEqual([2]);
+    // With the deletion in its history, revision 3 descends from it: newer.
+    const descended: LogBundle = { ...edited, history: [...edited.history, deleted.observations[1] as Observation] };
+    expect(planMerge(bundleTarget(deleted), descended).items.find((i) => i.id === o2.id)?.kind).toBe('newer');
   });
 
   it('the same revision with different content is a conflict: both kept, flagged', () => {

@@ -46,6 +46,24 @@ describe('CSV', () => {
     expect(b.notes).toBe("'-dark, not judged");
   });
 
+  it('puts the ice types first (egg-code order), then the deformation block, then the snow block', () => {
+    const cols = [...FLAT_COLUMNS];
+    const at = (c: string) => cols.indexOf(c);
+    // Each ice type in the egg code's order (WMO-No. 259): concentration, stage, form, then thickness.
+    expect(cols.slice(at('a_partial_concentration_tenths'), at('b_partial_concentration_tenths'))).toEqual([
+      'a_partial_concentration_tenths', 'a_partial_concentration_sigrid3', 'a_stage', 'a_stage_term', 'a_stage_sigrid3',
+      'a_floe_size', 'a_floe_size_sigrid3', 'a_thickness_cm',
+    ]);
+    const deformation = ['a', 'b', 'c'].flatMap((l) => [`${l}_ridged_tenths`, `${l}_rafted_tenths`, `${l}_sail_height_m`]);
+    const snow = ['a', 'b', 'c'].flatMap((l) => [`${l}_snow_cover`, `${l}_snow_wetness`, `${l}_snow_crust`, `${l}_snow_drifts`, `${l}_snow_depth_cm`]);
+    expect(cols.slice(at('a_ridged_tenths'), at('a_ridged_tenths') + deformation.length + snow.length)).toEqual([...deformation, ...snow]);
+    expect(at('a_ridged_tenths')).toBeGreaterThan(at('c_thickness_cm'));
+    const [a] = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true }).data as [Record<string, string>];
+    expect([a.a_ridged_tenths, a.a_rafted_tenths, a.a_sail_height_m]).toEqual(['2', '', '1.5']);
+    expect([a.a_snow_cover, a.a_snow_wetness, a.a_snow_crust, a.a_snow_drifts, a.a_snow_depth_cm]).toEqual(['complete', 'dry', 'true', '', '20']);
+    expect([a.b_snow_cover, a.b_snow_depth_cm, a.c_snow_cover]).toEqual(['none', '', '']);
+  });
+
   it('neutralises formula starts in text but not in numbers', () => {
     for (const s of ['=1+1', '+1', '-1', '@SUM(A1)', '\tx', '\rx']) expect(csvCell(s).replace(/^"/, '')).toMatch(/^'/);
     expect(csvCell(-1.5)).toBe('-1.5');

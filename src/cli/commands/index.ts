@@ -7,6 +7,7 @@ import { demoCommand } from './demo.ts';
 import { mergeCommand } from './merge.ts';
 import { polarisCommand } from './polaris.ts';
 import { summaryCommand } from './summary.ts';
+import { pullCommand, pushCommand } from './sync.ts';
 import { validateCommand } from './validate.ts';
 
-export const COMMANDS: readonly Command[] = [polarisCommand, demoCommand, validateCommand, summaryCommand, convertCommand, mergeCommand];
+export const COMMANDS: readonly Command[] = [polarisCommand, demoCommand, validateCommand, summaryCommand, convertCommand, mergeCommand, pullCommand, pushCommand];

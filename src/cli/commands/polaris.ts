@@ -3,7 +3,7 @@
 
 import { VESSEL_ICE_CLASSES, type VesselIceClass } from '../../domain/model.ts';
 import {
-  POLARIS_ICE_TYPES, POLARIS_ICE_TYPE_LABELS, VESSEL_ICE_CLASS_LABELS, computeRio, isPolarisIceType,
+  POLARIS_ICE_TYPES, POLARIS_ICE_TYPE_LABELS, VESSEL_ICE_CLASS_LABELS, computeRio, isPolarisIceType, parseVesselIceClass,
   type PolarisResult, type RegimeShare,
 } from '../../domain/polaris.ts';
 import { parseOptions, stringOption } from '../args.ts';
@@ -14,7 +14,8 @@ const usage = `Usage: npm run cli -- polaris --class <class> --ice "<tenths>:<ic
 Prints the POLARIS risk index outcome (RIO) of IMO MSC.1/Circ.1519 for an ice regime.
 Shares are whole tenths; whatever they leave of 10 is ice free.
 
-  --class            ${VESSEL_ICE_CLASSES.join(', ')}
+  --class            ${VESSEL_ICE_CLASSES.map((c) => VESSEL_ICE_CLASS_LABELS[c]).join(', ')}
+                     (any case; spaces and hyphens optional: "PC 5", "pc5", "IA Super")
   --ice              comma-separated <tenths>:<ice type>, ice types:
                      ${POLARIS_ICE_TYPES.join(', ')}
   --json             print one JSON object (rio, outcome, regime, speedLimitKn, cautions)
@@ -26,11 +27,11 @@ Example: npm run cli -- polaris --class PC5 --ice "6:thick-first-year,3:second-y
 POLARIS output is decision support. It does not replace the Polar Code, the ship's Polar Water
 Operational Manual, the master's judgement or local regulations.`;
 
-/** Class keys as typed, case-insensitive (`pc5`, `ia-super`, `NONE`). */
+/** The class as typed: our keys or the circular's spellings, any case or spacing (`PC 5`, `IA Super`). */
 export function parseIceClass(text: string): VesselIceClass {
-  const found = VESSEL_ICE_CLASSES.find((c) => c.toLowerCase() === text.trim().toLowerCase());
-  if (!found) throw new UsageError(`unknown ice class "${text}" (use one of ${VESSEL_ICE_CLASSES.join(', ')})`);
-  return found;
+  const r = parseVesselIceClass(text);
+  if (!r.ok) throw new UsageError(r.error);
+  return r.value;
 }
 
 /** `6:thick-first-year,3:second-year` into shares; every error names the bad part. */

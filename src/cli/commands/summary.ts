@@ -6,6 +6,7 @@ import { parseOptions } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
 import { collocateLoaded, ICEINFO_OPTIONS, ICEINFO_USAGE, loadIceInfo } from '../iceInfoFiles.ts';
 import { loadLog, printProblems } from '../logFiles.ts';
+import { visible } from '../terminalText.ts';
 
 const usage = `Usage: npm run cli -- summary FILE [--json] [--chart FILE] [--grid FILE] [options]
 
@@ -14,6 +15,8 @@ the track (WGS 84 geodesic), mean total concentration, stages seen, quality-cont
 With an ice chart or a concentration grid, also the agreement of the observed total
 concentration with them (observed minus product, tenths: count, mean, RMS, share within 1/10
 and 2/10, by ice regime and by observer, the largest differences), with its cautions.
+Control characters in names (escape sequences, NUL, right-to-left overrides) are shown as \\u
+escapes; --json gives the exact text.
 
   --json   print one JSON object instead (the agreement under "iceInfo")
 ${ICEINFO_USAGE}`;
@@ -51,7 +54,7 @@ export const summaryCommand: Command = {
       report = iceInfoReport(log.bundle.observations, collocateLoaded(log.bundle.observations, info), info.products, info.limits, info.method);
     }
     if (values.json) io.stdout(JSON.stringify(report ? { ...s, iceInfo: report } : s));
-    else for (const line of [...summaryLines(s), ...(report ? agreementLines(report) : [])]) io.stdout(line);
+    else for (const line of [...summaryLines(s), ...(report ? agreementLines(report) : [])]) io.stdout(visible(line));
     return EXIT_OK;
   },
 };

@@ -3,6 +3,7 @@
 import { parseOptions } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
 import { loadLog, printProblems } from '../logFiles.ts';
+import { visible } from '../terminalText.ts';
 
 const usage = `Usage: npm run cli -- validate FILE... [--quiet]
 
@@ -34,8 +35,8 @@ export const validateCommand: Command = {
       if (values.quiet) continue;
       const b = log.bundle;
       const migrated = log.fromVersion < 1 ? ` (format version ${log.fromVersion}, read by migration)` : '';
-      io.stdout(`${file}: valid${migrated}: ${b.observations.length} observations, ${b.history.length} earlier revisions, ${b.track.length} track points, ${b.photos.length} photos`);
-      for (const w of log.warnings) io.stdout(`${file}: warning: ${w.path}: ${w.message}`);
+      io.stdout(`${visible(file)}: valid${migrated}: ${b.observations.length} observations, ${b.history.length} earlier revisions, ${b.track.length} track points, ${b.photos.length} photos`);
+      for (const w of log.warnings) io.stdout(visible(`${file}: warning: ${w.path}: ${w.message}`));
     }
     return failed > 0 ? EXIT_FAILURE : EXIT_OK;
   },

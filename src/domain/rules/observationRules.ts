@@ -3,13 +3,14 @@
 // catalogue.ts, write the function here, append it to the list, and test it (docs/dev/domain.md).
 
 import type { Cruise, Finding, IceCategory, Observation } from '../model.ts';
-import { FLOE_SIZE_KEYS, STAGE_KEYS } from '../model.ts';
+import { FLOE_SIZE_KEYS, SNOW_COVERS, SNOW_WETNESS_CLASSES, STAGE_KEYS } from '../model.ts';
 import { STAGES } from '../nomenclature.ts';
 import { isStageSurelyThicker, isSurelyThicker } from '../ordering.ts';
 import { isValidLatLon } from '../position.ts';
 import { DEFAULT_SALINITY_PSU, FREEZING_POINT_SALINITY_RANGE, freezingPointC } from '../seawater.ts';
 import { KEEL_TO_SAIL_RATIO, MAX_KEEL_DEPTH_M } from '../ridges.ts';
 import { finding } from './catalogue.ts';
+import { deformationOf, iceTypeLetter, iceTypeName, snowOf, strayLetters } from '../iceTypes.ts';
 
 export interface RuleContext {
   cruise?: Cruise;
@@ -25,7 +26,7 @@ export interface ObservationRule {
 export const fmt = (v: number): string => (Number.isFinite(v) ? String(Math.round(v * 1000) / 1000) : String(v));
 const isTenths = (v: number, min = 0): boolean => Number.isInteger(v) && v >= min && v <= 10;
 const isNum = (v: unknown): v is number => typeof v === 'number';
-const catLabel = (i: number): string => `Category ${i + 1}`;
+const catLabel = iceTypeName;
 /** Data from a file may carry a stage we do not know; rules that look stages up skip those. */
 const knownStage = (stage: unknown): boolean => (STAGE_KEYS as readonly unknown[]).includes(stage);
 
@@ -79,7 +80,7 @@ const concentrationRule: ObservationRule = {
     } else if (!isTenths(total)) {
       out.push(finding('total-out-of-range', 'totalConcentration', `Total concentration ${fmt(total)} is not a whole number of tenths from 0 to 10`));
     }
-    if (cats.length > 3) out.push(finding('too-many-categories', 'categories', `${cats.length} ice categories: the egg code holds at most three (put the rest in the remaining stage)`));
+    if (cats.length > 3) out.push(finding('too-many-categories', 'categories', `${cats.length} ice types: the egg code holds at most three (put the rest in the remaining stage)`));
     cats.forEach((c, i) => {
       const p = c.partialConcentration;
       if (p === 0) out.push(finding('partial-zero', `categories.${i}.partialConcentration`, `${catLabel(i)} has a partial concentration of 0/10: remove it or give its share`));
@@ -90,9 +91,12 @@ const concentrationRule: ObservationRule = {
       if (sum > total) {
         out.push(finding('partials-exceed-total', 'categories', `Partial concentrations add up to ${fmt(sum)}/10, more than the total ${total}/10`));
       } else if (cats.length > 0 && sum < total && !obs.remainingStage) {
-        out.push(finding('partials-below-total', 'categories', `Partial concentrations add up to ${fmt(sum)}/10, less than the total ${total}/10: give the rest a category or a remaining stage`));
+        out.push(finding('partials-below-total', 'categories', `Partial concentrations add up to ${fmt(sum)}/10, less than the total ${total}/10: give the rest an ice type or a remaining stage`));
+      } else if (cats.length > 0 && sum === total && obs.remainingStage && knownStage(obs.remainingStage)) {
+        // Sd is the stage of the ice the partials leave of Ct (WMO-No. 259 egg code): here none.
+        out.push(finding('remaining-without-share', 'remainingStage', `Remaining stage ${STAGES[obs.remainingStage].label.toLowerCase()} is given but the partial concentrations already make up the total ${total}/10: lower a partial to leave Sd its share, or remove the remaining stage`));
       }
-      if (total > 0 && cats.length === 0) out.push(finding('categories-missing', 'categories', `Total concentration ${total}/10 but no ice category described`));
+      if (total > 0 && cats.length === 0) out.push(finding('categories-missing', 'categories', `Total concentration ${total}/10 but no ice type described`));
     }
     return out;
   },
@@ -108,16 +112,16 @@ const orderRule: ObservationRule = {
       const cur = cats[i] as IceCategory;
       if (knownStage(prev.stage) && knownStage(cur.stage) && isSurelyThicker(cur, prev)) {
         out.push(finding('categories-not-thickest-first', `categories.${i}`,
-          `${catLabel(i)} (${describe(cur)}) is thicker than category ${i} (${describe(prev)}): categories go thickest first`));
+          `${catLabel(i)} (${describe(cur)}) is thicker than ice type ${iceTypeLetter(i - 1)} (${describe(prev)}): ice types go thickest first`));
       }
     }
     const first = cats[0];
     const last = cats[cats.length - 1];
     if (obs.traceStage && first && knownStage(obs.traceStage) && knownStage(first.stage) && obs.traceStage !== 'undetermined' && first.stage !== 'undetermined' && !isStageSurelyThicker(obs.traceStage, first.stage)) {
-      out.push(finding('trace-not-thicker', 'traceStage', `Trace stage ${STAGES[obs.traceStage].label.toLowerCase()} is not thicker than the thickest category (${STAGES[first.stage].label.toLowerCase()})`));
+      out.push(finding('trace-not-thicker', 'traceStage', `Trace stage ${STAGES[obs.traceStage].label.toLowerCase()} is not thicker than the thickest ice type (${STAGES[first.stage].label.toLowerCase()})`));
     }
     if (obs.remainingStage && last && knownStage(obs.remainingStage) && knownStage(last.stage) && obs.remainingStage !== 'undetermined' && last.stage !== 'undetermined' && !isStageSurelyThicker(last.stage, obs.remainingStage)) {
-      out.push(finding('remaining-not-thinner', 'remainingStage', `Remaining stage ${STAGES[obs.remainingStage].label.toLowerCase()} is not thinner than the thinnest category (${STAGES[last.stage].label.toLowerCase()})`));
+      out.push(finding('remaining-not-thinner', 'remainingStage', `Remaining stage ${STAGES[obs.remainingStage].label.toLowerCase()} is not thinner than the thinnest ice type (${STAGES[last.stage].label.toLowerCase()})`));
     }
     return out;
   },
@@ -165,40 +169,87 @@ const categoryRule: ObservationRule = {
       if (c.floeSize === 'pancake' && !PANCAKE_FAMILIES.has(info.family)) {
         out.push(finding('pancake-stage-mismatch', at('floeSize'), `${catLabel(i)} is pancake ice but its stage is ${info.label.toLowerCase()}: pancakes are new or young ice`));
       }
+    });
+    return out;
+  },
+};
+
+/** Deformation of each ice type: shares in tenths, the sail height against the keels ridges have. */
+const deformationRule: ObservationRule = {
+  name: 'deformation',
+  check: (obs) => {
+    const out: Finding[] = [];
+    for (const l of strayLetters(obs.deformation, obs.categories.length)) {
+      out.push(finding('group-without-ice-type', `deformation.${l}`, `Deformation is given for ice type ${l}, but the observation has no ice type ${l}`));
+    }
+    obs.categories.forEach((c, i) => {
+      const d = deformationOf(obs, i);
+      if (!d) return;
+      const at = (f: string): string => `deformation.${iceTypeLetter(i)}.${f}`;
       const shares: ['ridgedTenths' | 'raftedTenths', string][] = [['ridgedTenths', 'ridged'], ['raftedTenths', 'rafted']];
       let sharesOk = true;
       for (const [field, word] of shares) {
-        const v = c[field];
+        const v = d[field];
         if (isNum(v) && !isTenths(v)) {
           sharesOk = false;
           out.push(finding('deformation-share-out-of-range', at(field), `${catLabel(i)} ${word} share ${fmt(v)} is not a whole number of tenths from 0 to 10`));
         }
       }
-      if (sharesOk && (c.ridgedTenths ?? 0) + (c.raftedTenths ?? 0) > 10) {
-        out.push(finding('deformed-share-exceeds-category', at('ridgedTenths'), `${catLabel(i)} ridged ${c.ridgedTenths}/10 and rafted ${c.raftedTenths}/10 add up to more than the whole category`));
+      if (sharesOk && (d.ridgedTenths ?? 0) + (d.raftedTenths ?? 0) > 10) {
+        out.push(finding('deformed-share-exceeds-category', at('ridgedTenths'), `${catLabel(i)} ridged ${d.ridgedTenths}/10 and rafted ${d.raftedTenths}/10 add up to more than the whole ice type`));
       }
-      if (isNum(c.sailHeightM)) {
-        const h = c.sailHeightM;
+      if (isNum(d.sailHeightM)) {
+        const h = d.sailHeightM;
         if (!Number.isFinite(h) || h < 0) {
           out.push(finding('sail-height-out-of-range', at('sailHeightM'), `${catLabel(i)} sail height ${fmt(h)} m is not a height (0 m or more)`));
         } else {
-          const ratio = info.family === 'old' ? KEEL_TO_SAIL_RATIO.multiYear : KEEL_TO_SAIL_RATIO.firstYear;
+          const family = knownStage(c.stage) ? STAGES[c.stage].family : 'undetermined';
+          const ratio = family === 'old' ? KEEL_TO_SAIL_RATIO.multiYear : KEEL_TO_SAIL_RATIO.firstYear;
           if (h * ratio > MAX_KEEL_DEPTH_M) {
             out.push(finding('sail-height-implausible', at('sailHeightM'), `${catLabel(i)} sail height ${fmt(h)} m implies a keel about ${fmt(h * ratio)} m deep; keels reach about ${MAX_KEEL_DEPTH_M} m`));
           }
-          if (h > 0 && c.ridgedTenths === 0) {
+          if (h > 0 && d.ridgedTenths === 0) {
             out.push(finding('sail-height-without-ridges', at('sailHeightM'), `${catLabel(i)} has a sail height of ${fmt(h)} m but a ridged share of 0/10`));
           }
         }
       }
-      if (isNum(c.snowDepthCm)) {
-        const d = c.snowDepthCm;
+    });
+    return out;
+  },
+};
+
+/** Snow on each ice type: a depth that is a depth, and no description of snow said to be absent. */
+const snowRule: ObservationRule = {
+  name: 'snow',
+  check: (obs) => {
+    const out: Finding[] = [];
+    for (const l of strayLetters(obs.snow, obs.categories.length)) {
+      out.push(finding('group-without-ice-type', `snow.${l}`, `Snow is given for ice type ${l}, but the observation has no ice type ${l}`));
+    }
+    obs.categories.forEach((_c, i) => {
+      const s = snowOf(obs, i);
+      if (!s) return;
+      const at = (f: string): string => `snow.${iceTypeLetter(i)}.${f}`;
+      if (s.cover !== undefined && !(SNOW_COVERS as readonly unknown[]).includes(s.cover)) {
+        out.push(finding('snow-term-unknown', at('cover'), `${catLabel(i)} snow cover "${String(s.cover)}" is not one of ${SNOW_COVERS.join(', ')}`));
+      }
+      if (s.wetness !== undefined && !(SNOW_WETNESS_CLASSES as readonly unknown[]).includes(s.wetness)) {
+        out.push(finding('snow-term-unknown', at('wetness'), `${catLabel(i)} snow wetness "${String(s.wetness)}" is not a wetness class (${SNOW_WETNESS_CLASSES.join(', ')})`));
+      }
+      if (isNum(s.depthCm)) {
+        const d = s.depthCm;
         if (!Number.isFinite(d) || d < 0) {
-          out.push(finding('snow-depth-out-of-range', at('snowDepthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm is not a depth (0 cm or more)`));
+          out.push(finding('snow-depth-out-of-range', at('depthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm is not a depth (0 cm or more)`));
         } else if (d > MAX_PLAUSIBLE_SNOW_CM) {
-          out.push(finding('snow-depth-implausible', at('snowDepthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm is more than seen on sea ice (about ${MAX_PLAUSIBLE_SNOW_CM} cm)`));
-        } else if (d > 0 && c.snowKind === 'none') {
-          out.push(finding('snow-depth-without-snow', at('snowDepthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm but snow is "none"`));
+          out.push(finding('snow-depth-implausible', at('depthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm is more than seen on sea ice (about ${MAX_PLAUSIBLE_SNOW_CM} cm)`));
+        } else if (d > 0 && s.cover === 'none') {
+          out.push(finding('snow-depth-without-snow', at('depthCm'), `${catLabel(i)} snow depth ${fmt(d)} cm but the snow cover is "none"`));
+        }
+      }
+      if (s.cover === 'none') {
+        const described = [s.wetness !== undefined ? 'wetness' : '', s.crust ? 'a crust' : '', s.drifts ? 'drifts' : ''].filter((x) => x !== '');
+        if (described.length > 0) {
+          out.push(finding('snow-described-without-snow', at('cover'), `${catLabel(i)} has no snow but ${described.join(' and ')} given`));
         }
       }
     });
@@ -250,6 +301,8 @@ const weatherRule: ObservationRule = {
     let salinityForCheck = DEFAULT_SALINITY_PSU;
     let salinityMeasured = false;
     if (isNum(w.salinityPsu)) {
+      // 0-50: open-ocean surface water is about 32-37 (common practice); 4-40 is the range of the
+      // UNESCO 1983 freezing-point formula (Fofonoff and Millard 1983).
       if (!Number.isFinite(w.salinityPsu) || w.salinityPsu < 0 || w.salinityPsu > 50) {
         out.push(finding('salinity-out-of-range', 'weather.salinityPsu', `Salinity ${fmt(w.salinityPsu)} is outside 0 to 50`));
       } else {
@@ -262,6 +315,8 @@ const weatherRule: ObservationRule = {
       }
     }
     if (isNum(w.waterTempC)) {
+      // -3 °C is below the freezing point of any sea water the UNESCO 1983 formula covers
+      // (Tf(40, 0) = -2.21 °C); 40 °C is above the warmest sea surfaces (about 36 °C, from memory).
       if (!Number.isFinite(w.waterTempC) || w.waterTempC < -3 || w.waterTempC > 40) {
         out.push(finding('water-temp-out-of-range', 'weather.waterTempC', `Water temperature ${fmt(w.waterTempC)} °C is impossible for sea water at the surface (-3 to 40 °C)`));
       } else {
@@ -273,6 +328,8 @@ const weatherRule: ObservationRule = {
       }
     }
     if (isNum(w.windSpeedKn)) {
+      // Force 12 on the Beaufort scale is 64 kn and more; 120 kn is our own bound for a typed unit
+      // mistake (km/h or m/s as knots), common practice.
       if (!Number.isFinite(w.windSpeedKn) || w.windSpeedKn < 0) out.push(finding('wind-out-of-range', 'weather.windSpeedKn', `Wind speed ${fmt(w.windSpeedKn)} kn is negative`));
       else if (w.windSpeedKn > 120) out.push(finding('wind-doubtful', 'weather.windSpeedKn', `Wind speed ${fmt(w.windSpeedKn)} kn is far above hurricane force (64 kn): check the unit`));
     }
@@ -315,5 +372,5 @@ const surfaceRule: ObservationRule = {
 
 /** The rules validateObservation runs, in this order. */
 export const OBSERVATION_RULES: readonly ObservationRule[] = [
-  timeRule, cruiseRule, concentrationRule, orderRule, categoryRule, positionRule, weatherRule, surfaceRule,
+  timeRule, cruiseRule, concentrationRule, orderRule, categoryRule, deformationRule, snowRule, positionRule, weatherRule, surfaceRule,
 ];

@@ -28,10 +28,11 @@ export class LatitudeBandBuilder {
   private readonly pools = new Map<number, { pool: IcePool; hours: number }>();
   private withoutPosition = 0;
 
-  add(obs: Observation, f: ObservationFigures, hours: number): void {
+  /** Adds an observation, or with sign -1 takes back one added before with the same figures. */
+  add(obs: Observation, f: ObservationFigures, hours: number, sign: 1 | -1 = 1): void {
     const lat = obs.position?.lat;
     if (lat === undefined || !Number.isFinite(lat)) {
-      this.withoutPosition++;
+      this.withoutPosition += sign;
       return;
     }
     // 90°N belongs to the band below it, so the bands stop at the pole.
@@ -41,8 +42,9 @@ export class LatitudeBandBuilder {
       entry = { pool: new IcePool(), hours: 0 };
       this.pools.set(south, entry);
     }
-    entry.pool.add(obs, f);
-    entry.hours += hours;
+    entry.pool.add(obs, f, sign);
+    entry.hours += sign * hours;
+    if (entry.pool.count === 0) this.pools.delete(south);
   }
 
   result(): LatitudeBandTable {

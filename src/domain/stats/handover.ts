@@ -44,10 +44,10 @@ class Diff {
   private n = 0;
   private sum = 0;
   private abs = 0;
-  add(d: number): void {
-    this.n++;
-    this.sum += d;
-    this.abs += Math.abs(d);
+  add(d: number, sign: 1 | -1): void {
+    this.n += sign;
+    this.sum += sign * d;
+    this.abs += sign * Math.abs(d);
   }
   result(): DifferenceStats {
     return { count: this.n, meanDiff: this.n ? this.sum / this.n : null, meanAbsDiff: this.n ? this.abs / this.n : null };
@@ -69,17 +69,18 @@ export class HandoverBuilder {
 
   /**
    * Adds a consecutive pair of observations a (earlier) and b, with each one's level thickness.
-   * Call only for pairs closer in time than the attribution cap.
+   * Call only for pairs closer in time than the attribution cap. With sign -1 a pair added before
+   * is taken back (the incremental review).
    */
-  add(a: Observation, ta: number | null, b: Observation, tb: number | null): void {
+  add(a: Observation, ta: number | null, b: Observation, tb: number | null, sign: 1 | -1 = 1): void {
     const ca = a.totalConcentration;
     const cb = b.totalConcentration;
     const dc = ca !== null && cb !== null ? cb - ca : null;
     const dt = ta !== null && tb !== null ? tb - ta : null;
     if (a.observerId === b.observerId) {
-      this.same.count++;
-      if (dc !== null) this.same.conc.add(dc);
-      if (dt !== null) this.same.thick.add(dt);
+      this.same.count += sign;
+      if (dc !== null) this.same.conc.add(dc, sign);
+      if (dt !== null) this.same.thick.add(dt, sign);
       return;
     }
     let byTo = this.pairs.get(a.observerId);
@@ -92,23 +93,25 @@ export class HandoverBuilder {
       p = { ...acc(), from: a.observerId, to: b.observerId };
       byTo.set(b.observerId, p);
     }
-    p.count++;
-    if (dc !== null) p.conc.add(dc);
-    if (dt !== null) p.thick.add(dt);
+    p.count += sign;
+    if (dc !== null) p.conc.add(dc, sign);
+    if (dt !== null) p.thick.add(dt, sign);
+    if (p.count === 0) byTo.delete(b.observerId);
     // Each side's offset: own reading minus the other's.
-    this.offset(b.observerId, 1, dc, dt);
-    this.offset(a.observerId, -1, dc, dt);
+    this.offset(b.observerId, 1, dc, dt, sign);
+    this.offset(a.observerId, -1, dc, dt, sign);
   }
 
-  private offset(id: string, sign: number, dc: number | null, dt: number | null): void {
+  private offset(id: string, side: 1 | -1, dc: number | null, dt: number | null, sign: 1 | -1): void {
     let o = this.offsets.get(id);
     if (!o) {
       o = acc();
       this.offsets.set(id, o);
     }
-    o.count++;
-    if (dc !== null) o.conc.add(sign * dc);
-    if (dt !== null) o.thick.add(sign * dt);
+    o.count += sign;
+    if (dc !== null) o.conc.add(side * dc, sign);
+    if (dt !== null) o.thick.add(side * dt, sign);
+    if (o.count === 0) this.offsets.delete(id);
   }
 
   result(): HandoverTable {

@@ -26,6 +26,9 @@ export interface IceFigures {
   stageShares: StageShare[];
 }
 
+/** Below this a summed weight (tenths) is a rounding residue, not ice. */
+const WEIGHT_EPSILON = 1e-9;
+
 const STAGE_INDEX: ReadonlyMap<StageKey, number> = new Map(STAGE_KEYS.map((k, i) => [k, i]));
 
 export class IcePool {
@@ -41,44 +44,51 @@ export class IcePool {
   private readonly stageW = new Float64Array(STAGE_KEYS.length);
   private stageTotal = 0;
 
-  add(obs: Observation, f: ObservationFigures): void {
-    this.n++;
+  /** Observations pooled so far. */
+  get count(): number {
+    return this.n;
+  }
+
+  /** Adds an observation, or with sign -1 takes back one added before (the incremental review). */
+  add(obs: Observation, f: ObservationFigures, sign: 1 | -1 = 1): void {
+    this.n += sign;
     const c = obs.totalConcentration;
     if (c !== null && Number.isFinite(c)) {
-      this.judged++;
-      this.concSum += c;
+      this.judged += sign;
+      this.concSum += sign * c;
     }
-    this.tSum += f.thicknessWeightedSum;
-    this.tW += f.thicknessWeight;
-    this.rtSum += f.ridgedThicknessWeightedSum;
-    this.rtW += f.ridgedThicknessWeight;
-    this.rSum += f.ridgedWeightedSum;
-    this.rW += f.ridgedWeight;
+    this.tSum += sign * f.thicknessWeightedSum;
+    this.tW += sign * f.thicknessWeight;
+    this.rtSum += sign * f.ridgedThicknessWeightedSum;
+    this.rtW += sign * f.ridgedThicknessWeight;
+    this.rSum += sign * f.ridgedWeightedSum;
+    this.rW += sign * f.ridgedWeight;
     const cats = obs.categories;
     for (let k = 0; k < cats.length; k++) {
       const w = categoryWeight(obs, k);
       const i = w > 0 ? STAGE_INDEX.get((cats[k] as Observation['categories'][number]).stage) : undefined;
       if (i === undefined) continue;
-      this.stageW[i] = (this.stageW[i] as number) + w;
-      this.stageTotal += w;
+      this.stageW[i] = (this.stageW[i] as number) + sign * w;
+      this.stageTotal += sign * w;
     }
   }
 
   result(): IceFigures {
     const stageShares: StageShare[] = [];
-    if (this.stageTotal > 0) {
+    // Weights are tenths; what is left after taking observations back may be a rounding residue.
+    if (this.stageTotal > WEIGHT_EPSILON) {
       STAGE_KEYS.forEach((stage, i) => {
         const w = this.stageW[i] as number;
-        if (w > 0) stageShares.push({ stage, share: w / this.stageTotal });
+        if (w > WEIGHT_EPSILON) stageShares.push({ stage, share: w / this.stageTotal });
       });
     }
     return {
       observations: this.n,
       judged: this.judged,
       meanConcentration: this.judged > 0 ? this.concSum / this.judged : null,
-      meanThicknessCm: this.tW > 0 ? this.tSum / this.tW : null,
-      meanThicknessWithRidgesCm: this.rtW > 0 ? this.rtSum / this.rtW : null,
-      ridgedShare: this.rW > 0 ? this.rSum / this.rW : null,
+      meanThicknessCm: this.tW > WEIGHT_EPSILON ? this.tSum / this.tW : null,
+      meanThicknessWithRidgesCm: this.rtW > WEIGHT_EPSILON ? this.rtSum / this.rtW : null,
+      ridgedShare: this.rW > WEIGHT_EPSILON ? this.rSum / this.rW : null,
       stageShares,
     };
   }

@@ -1,6 +1,7 @@
 // The figures the review derives from one observation, computed once and shared by the summary,
 // the latitude bands, the handover table and the charts.
-import type { IceCategory, Observation, VesselIceClass } from '../model.ts';
+import { deformationOf } from '../iceTypes.ts';
+import type { Deformation, IceCategory, Observation, VesselIceClass } from '../model.ts';
 import type { PolarisOutcome } from '../polaris.ts';
 import { rioForObservation } from './rio.ts';
 
@@ -35,7 +36,7 @@ export interface ObservationFigures {
 }
 
 /** Thickness of a category including its ridges (cm), or null when no estimate can be made. */
-export type RidgeThicknessEstimate = (category: IceCategory) => number | null;
+export type RidgeThicknessEstimate = (category: IceCategory, deformation: Deformation | undefined) => number | null;
 
 export function observationFigures(
   obs: Observation,
@@ -59,15 +60,16 @@ export function observationFigures(
       tSum += w * c.thicknessCm;
       tW += w;
     }
+    const d = deformationOf(obs, i);
     if (ridgeEstimate) {
-      const h = ridgeEstimate(c);
+      const h = ridgeEstimate(c, d);
       if (h !== null && Number.isFinite(h)) {
         rtSum += w * h;
         rtW += w;
       }
     }
-    if (c.ridgedTenths !== undefined && Number.isFinite(c.ridgedTenths)) {
-      rSum += (w * c.ridgedTenths) / 10;
+    if (d?.ridgedTenths !== undefined && Number.isFinite(d.ridgedTenths)) {
+      rSum += (w * d.ridgedTenths) / 10;
       rW += w;
     }
   }

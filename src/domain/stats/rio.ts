@@ -43,7 +43,8 @@ export function rioForObservation(obs: RioObservation, iceClass: VesselIceClass)
   // Written out without closures: this runs once per observation of a whole cruise.
   let sum = 0;
   let acc = 0;
-  if (cats.length === 1) {
+  // One category without Sd takes the total; with Sd the rest of the total is Sd's (polaris.ts).
+  if (cats.length === 1 && !obs.remainingStage) {
     const c = cats[0]!;
     const tenths = total ?? c.partialConcentration;
     if (!Number.isFinite(tenths) || tenths < 0) return null;

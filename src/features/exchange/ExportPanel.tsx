@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { setSetting } from '../../db';
 import { saveBlob } from './download';
 import { buildExport, EXPORT_KINDS, EXPORT_LABELS, type ExportKind } from './exportFiles';
+import { CURRENT_VERSION, SCHEMA_V2_PATH } from '../../format/types';
 
 export function ExportPanel({ cruiseId }: { cruiseId: string | null }) {
   const [busy, setBusy] = useState<ExportKind | null>(null);
@@ -41,8 +42,8 @@ export function ExportPanel({ cruiseId }: { cruiseId: string | null }) {
         Include deleted observations in GeoJSON, CSV and NDJSON
       </label>
       <p className="muted small">
-        The full log follows the published format &quot;floe-ledger-log&quot; version 1 (
-        <a href="format/floe-ledger-log-1.schema.json" target="_blank" rel="noreferrer">
+        The full log follows the published format &quot;floe-ledger-log&quot; version {CURRENT_VERSION} (
+        <a href={SCHEMA_V2_PATH} target="_blank" rel="noreferrer">
           JSON Schema
         </a>
         ): times in UTC, positions in WGS 84 decimal degrees, concentrations in tenths, WMO terms with SIGRID-3 codes.

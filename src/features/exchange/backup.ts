@@ -1,8 +1,7 @@
 // Automatic backup: the active cruise written as a log file into a folder the observer chose,
 // through the File System Access API (Chromium). The browser keeps the folder handle in the
 // store; after a reload it may ask again for permission, which needs a click.
-import { getSetting, readCruiseExport, setSetting } from '../../db';
-import { exportLogJson } from '../../format/encode';
+import { exportLogPieces, getCruise, getSetting, RecordNotFoundError, setSetting } from '../../db';
 import { slug } from './download';
 
 /** The parts of the API that TypeScript's DOM library does not describe (Chromium only). */
@@ -50,12 +49,14 @@ export function backupFileName(cruiseName: string): string {
 
 /** Writes the backup file (replaced as a whole: the browser swaps it in when the write closes). */
 export async function writeBackup(dir: FileSystemDirectoryHandle, cruiseId: string): Promise<{ at: string; fileName: string }> {
-  const { bundle } = await readCruiseExport(cruiseId);
-  const fileName = backupFileName(bundle.cruise.name);
+  const cruise = await getCruise(cruiseId);
+  if (!cruise) throw new RecordNotFoundError('cruise', cruiseId);
+  const fileName = backupFileName(cruise.name);
   const file = await dir.getFileHandle(fileName, { create: true });
   const writable = await file.createWritable();
   try {
-    await writable.write(new Blob(exportLogJson(bundle), { type: 'application/json' }));
+    // Piece by piece from the store: the backup of a season never sits whole in memory.
+    for await (const piece of exportLogPieces(cruiseId)) await writable.write(piece);
     await writable.close();
   } catch (err) {
     await writable.abort().catch(() => undefined);

@@ -1,8 +1,7 @@
 // Builds each export file of a cruise from the store, with the format's writers.
-import { readCruiseExport } from '../../db';
+import { exportLogPieces, getCruise, readCruiseExport } from '../../db';
 import { writeArchive } from '../../format/archive';
 import { writeCsv } from '../../format/csv';
-import { exportLogJson } from '../../format/encode';
 import { writeGeoJson } from '../../format/geojson';
 import { writeNdjson } from '../../format/ndjson';
 import { MEDIA_TYPE } from '../../format/types';
@@ -14,7 +13,7 @@ export type ExportKind = (typeof EXPORT_KINDS)[number];
 export const EXPORT_LABELS: Record<ExportKind, { label: string; hint: string }> = {
   log: { label: 'Full log (JSON)', hint: 'Everything, with revisions and conflict copies; readable by Floe Ledger and any JSON tool.' },
   geojson: { label: 'GeoJSON', hint: 'Observations as points, the track as a line, for GIS.' },
-  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice category, for spreadsheets and R.' },
+  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice type, then deformation and snow blocks, for spreadsheets and R.' },
   ndjson: { label: 'NDJSON', hint: 'One observation record per line, for streaming tools.' },
   zip: { label: 'Archive with photos (zip)', hint: 'The full log and every photo, to hand over or archive.' },
 };
@@ -28,12 +27,37 @@ const TYPE: Record<ExportKind, string> = {
   zip: 'application/zip',
 };
 
+/**
+ * Gathers text pieces into a Blob a few megabytes at a time, so the pieces already handed over
+ * can be let go (the browser keeps large Blobs out of the script's memory).
+ */
+export async function piecesToBlob(pieces: AsyncIterable<string>, type: string, foldChars = 8_000_000): Promise<Blob> {
+  let blob = new Blob([], { type });
+  let pending: string[] = [];
+  let size = 0;
+  for await (const piece of pieces) {
+    pending.push(piece);
+    size += piece.length;
+    if (size >= foldChars) {
+      blob = new Blob([blob, ...pending], { type });
+      pending = [];
+      size = 0;
+    }
+  }
+  return new Blob([blob, ...pending], { type });
+}
+
 export async function buildExport(cruiseId: string, kind: ExportKind, opts: { includeDeleted?: boolean } = {}): Promise<{ blob: Blob; fileName: string }> {
+  if (kind === 'log') {
+    // The full log streams out of the store; the other forms still read the cruise whole.
+    const cruise = await getCruise(cruiseId);
+    const blob = await piecesToBlob(exportLogPieces(cruiseId), TYPE.log);
+    return { blob, fileName: `${slug(cruise?.name ?? 'cruise')}-${stamp()}.${EXT.log}` };
+  }
   const { bundle, photos } = await readCruiseExport(cruiseId, { photoBytes: kind === 'zip' });
   const flat = { includeDeleted: opts.includeDeleted === true };
   let parts: BlobPart[];
-  if (kind === 'log') parts = exportLogJson(bundle);
-  else if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
+  if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
   else if (kind === 'csv') parts = writeCsv(bundle, flat);
   else if (kind === 'ndjson') parts = writeNdjson(bundle, flat);
   else parts = [writeArchive(bundle, photos) as Uint8Array<ArrayBuffer>];

@@ -5,6 +5,7 @@ import { looksLikeZip } from '../../format/archive';
 import { readArchive } from '../../format/archiveRead';
 import { LIMITS } from '../../format/limits';
 import { readLogText } from '../../format/read';
+import { decodeLogText } from '../../format/text';
 import type { ParsedFile, ParseStage } from './progress';
 
 export type { ParsedFile, ParseStage, WorkerMessage, WorkerRequest } from './progress';
@@ -33,12 +34,8 @@ export async function parseFile(file: Blob, fileName: string, onProgress: (stage
     const r = readArchive(bytes, progress);
     return r.ok ? { ok: true, fileName, bundle: r.bundle, photos: r.photos, fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, fileName, problems: r.problems };
   }
-  let text: string;
-  try {
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    return fail('the file is not UTF-8 text (a log file is JSON text or a zip archive)');
-  }
-  const r = readLogText(text, progress, bytes.length);
+  const decoded = decodeLogText(bytes);
+  if (!decoded.ok) return { ok: false, fileName, problems: { listed: [decoded.problem], more: 0 } };
+  const r = readLogText(decoded.text, progress, bytes.length);
   return r.ok ? { ok: true, fileName, bundle: r.bundle, photos: new Map(), fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, fileName, problems: r.problems };
 }

@@ -1,10 +1,11 @@
-// One ice type of the observation (a column of the egg code): its concentration, stage,
-// thickness and floe size first, then deformation and snow.
+// One ice type of the observation (a column of the egg code), in the egg code's order
+// (WMO-No. 259): concentration, stage of development, form (floe size), then thickness.
+// Deformation and snow have fieldsets of their own (IceTypeGroupFieldsets.tsx).
 import type { Finding } from '../../domain/model';
 import { useObservationForm, type CategoryDraft, type CategoryField } from '../../state/observationForm';
 import { describedBy, Field, findingsAt, FindingLines } from './Field';
 import { CATEGORY_LETTERS } from './formModel';
-import { FLOE_SIZE_OPTIONS, SNOW_OPTIONS, STAGE_OPTIONS } from './options';
+import { FLOE_SIZE_OPTIONS, STAGE_OPTIONS } from './options';
 import { PickList } from './PickList';
 import { TenthsInput } from './TenthsInput';
 
@@ -29,7 +30,7 @@ export function CategoryFieldset({ category: c, index, count, pathIndex, finding
   const at = (f: string) => findingsAt(findings, `${base}.${f}`);
   const own = findings.filter((f) => f.path === base);
 
-  const text = (field: 'thicknessCm' | 'sailHeightM' | 'snowDepthCm', label: string, path: string, unit: string) => {
+  const text = (field: 'thicknessCm', label: string, path: string, unit: string) => {
     const fs = at(path);
     return (
       <Field id={id(field)} label={`${label} (${letter}), ${unit}`} findings={fs}>
@@ -46,7 +47,7 @@ export function CategoryFieldset({ category: c, index, count, pathIndex, finding
       </Field>
     );
   };
-  const tenths = (field: 'partial' | 'ridged' | 'rafted', label: string, path: string, hint?: string) => {
+  const tenths = (field: 'partial', label: string, path: string, hint?: string) => {
     const fs = at(path);
     return (
       <Field id={id(field)} label={label} hint={hint} findings={fs}>
@@ -66,19 +67,10 @@ export function CategoryFieldset({ category: c, index, count, pathIndex, finding
         <Field id={id('stage')} label={`Stage S${letter}`} hint="type" findings={at('stage')}>
           <PickList id={id('stage')} value={c.stage} onValue={set('stage')} options={STAGE_OPTIONS} aria-label={`Stage S${letter}`} {...describedBy(id('stage'), at('stage'))} />
         </Field>
-        {text('thicknessCm', 'Thickness', 'thicknessCm', 'cm')}
         <Field id={id('floeSize')} label={`Floe size F${letter}`} hint="type" findings={at('floeSize')}>
           <PickList id={id('floeSize')} value={c.floeSize} onValue={set('floeSize')} options={FLOE_SIZE_OPTIONS} aria-label={`Floe size F${letter}`} {...describedBy(id('floeSize'), at('floeSize'))} />
         </Field>
-      </div>
-      <div className="category-more">
-        {tenths('ridged', `Ridged (${letter}), tenths`, 'ridgedTenths')}
-        {tenths('rafted', `Rafted (${letter}), tenths`, 'raftedTenths')}
-        {text('sailHeightM', 'Sail height', 'sailHeightM', 'm')}
-        <Field id={id('snowKind')} label={`Snow (${letter})`} findings={at('snowKind')}>
-          <PickList id={id('snowKind')} value={c.snowKind} onValue={set('snowKind')} options={SNOW_OPTIONS} aria-label={`Snow (${letter})`} />
-        </Field>
-        {text('snowDepthCm', 'Snow depth', 'snowDepthCm', 'cm')}
+        {text('thicknessCm', 'Thickness', 'thicknessCm', 'cm')}
       </div>
       <FindingLines id={`f-cat-${c.key}`} findings={own} />
       <button type="button" className="button small" tabIndex={-1} onClick={() => removeCategory(c.key)} aria-label={`Remove ice type ${letter}`}>

@@ -19,7 +19,8 @@ function WatchCaller({ cruise, observations }: { cruise: Cruise; observations: r
   const called = useRef<{ slot: string; state: string; atMs: number } | null>(null);
 
   useEffect(() => {
-    if (status.state === 'waiting' || silenced === status.nextDue) return;
+    // After the cruise's end nothing is called for: no sound, no notification.
+    if (status.state === 'waiting' || status.state === 'ended' || silenced === status.nextDue) return;
     const last = called.current;
     const nowMs = now.getTime();
     // Call once on entering each state; while overdue, again every five minutes.

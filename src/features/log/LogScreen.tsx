@@ -13,8 +13,10 @@ import { observationToDraft, readTime } from './formModel';
 import { GpsPanel, fixAgeS } from './GpsPanel';
 import { HistoryPanel } from './HistoryPanel';
 import { useActiveCruise, useObservations } from './logData';
+import { NumberKeypad } from './NumberKeypad';
 import { ObservationForm } from './ObservationForm';
 import { ObservationList } from './ObservationList';
+import { useServerMarks } from '../sync/useServerMarks';
 import { StartScreen } from './StartScreen';
 import { TrackImportPanel } from './TrackImportPanel';
 import { useTrackPosition } from './trackPosition';
@@ -58,6 +60,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
   const trackReason = source === 'track-interpolated' && trackPosition && !trackPosition.ok ? trackPosition.reason : null;
 
   const select = useSelection((s) => s.select);
+  const onServer = useServerMarks(cruise.id);
 
   if (!observations || !ready) {
     return <p role="status">Opening the log of {cruise.name}…</p>;
@@ -78,6 +81,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
         </p>
       )}
       <ObservationForm cruise={cruise} observations={observations} livePosition={livePosition} positionNote={trackReason} defaultSource={defaultSource} />
+      <NumberKeypad />
       <p className="muted small autosave-line" aria-live="polite">
         {autosave.kind === 'saved' && `Draft kept ${autosave.at.slice(11, 19)} UTC.`}
         {autosave.kind === 'failed' && <span className="finding finding-error">The draft could not be kept: {autosave.message}</span>}
@@ -86,6 +90,7 @@ function CruiseLog({ cruise }: { cruise: Cruise }) {
         <ObservationList
           cruise={cruise}
           observations={observations}
+          onServer={onServer}
           onEdit={(o) => {
             select(o.id, 'list');
             void openEdit(cruise.id, o.id, () => ({ draft: observationToDraft(o, { asNext: false }), editing: { id: o.id, expectedRevision: o.revision } })).then(() => {

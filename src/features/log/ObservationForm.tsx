@@ -12,7 +12,8 @@ import { thickestFirst } from './categoryOrder';
 import { describedBy, Field, FindingLines, findingsAt } from './Field';
 import { FindingsSummary } from './FindingsSummary';
 import { jumpSection } from './focusNav';
-import { filledCategories, findingKey, isBlankCategory, observationToDraft, readDraft, type ObservationFields } from './formModel';
+import { CATEGORY_LETTERS, filledCategories, findingKey, isBlankCategory, observationToDraft, readDraft, type ObservationFields } from './formModel';
+import { DeformationFieldset, groupControlId, SnowFieldset } from './IceTypeGroupFieldsets';
 import { draftFormName, resumeNewEntry } from './useDraftAutosave';
 import { observationFindings } from './findings';
 import { MELT_STATE_OPTIONS, OPEN_WATER_OPTIONS, observerOptions, STAGE_OPTIONS } from './options';
@@ -43,9 +44,14 @@ type Status =
   | { kind: 'failed'; text: string };
 
 const CATEGORY_PATH_FIELDS: Record<string, string> = {
-  partialConcentration: 'partial', stage: 'stage', thicknessCm: 'thicknessCm', floeSize: 'floeSize',
-  ridgedTenths: 'ridged', raftedTenths: 'rafted', sailHeightM: 'sailHeightM', snowKind: 'snowKind', snowDepthCm: 'snowDepthCm',
+  partialConcentration: 'partial', stage: 'stage', floeSize: 'floeSize', thicknessCm: 'thicknessCm',
 };
+
+/** Control of each group field, by the model's field name (first one for the group itself). */
+const GROUP_PATH_FIELDS = {
+  deformation: { group: 'def', first: 'ridged', fields: { ridgedTenths: 'ridged', raftedTenths: 'rafted', sailHeightM: 'sailHeightM' } },
+  snow: { group: 'snow', first: 'cover', fields: { cover: 'cover', wetness: 'wetness', crust: 'crust', drifts: 'drifts', depthCm: 'depthCm' } },
+} as const satisfies Record<string, { group: 'def' | 'snow'; first: string; fields: Record<string, string> }>;
 
 const PLAIN_PATH_FIELDS: Record<string, string> = {
   time: 'f-time', position: 'f-position', observerId: 'f-observer', totalConcentration: 'f-total',
@@ -62,6 +68,14 @@ export function controlIdForPath(path: string, draft: ObservationDraft): string 
     const c = filledCategories(draft)[Number(cat[1])];
     if (!c) return null;
     return `f-cat-${c.key}-${CATEGORY_PATH_FIELDS[cat[2] ?? 'partialConcentration'] ?? 'partial'}`;
+  }
+  const grp = /^(deformation|snow)\.([a-z])(?:\.(\w+))?/.exec(path);
+  if (grp) {
+    const spec = GROUP_PATH_FIELDS[grp[1] as 'deformation' | 'snow'];
+    const c = filledCategories(draft)[(CATEGORY_LETTERS as readonly string[]).indexOf(grp[2] ?? '')];
+    if (!c) return null;
+    const fields: Readonly<Record<string, string>> = spec.fields;
+    return groupControlId(spec.group, c.key, fields[grp[3] ?? ''] ?? spec.first);
   }
   if (path.startsWith('weather.')) return `f-${path.slice('weather.'.length)}`;
   return PLAIN_PATH_FIELDS[path] ?? (path.startsWith('position') ? 'f-position' : null);
@@ -102,6 +116,8 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
   const filled = filledCategories(draft);
 
   const focusId = (id: string) => {
+    // A save can finish after the page is gone (a closing tab, a torn-down test): nothing to focus.
+    if (typeof document === 'undefined') return;
     const el = document.getElementById(id);
     if (el) el.focus();
   };
@@ -351,6 +367,10 @@ export function ObservationForm({ cruise, observations, livePosition, positionNo
             <FindingLines id="f-categories" findings={findings.filter((f) => f.path === 'categories')} />
           </div>
         </div>
+
+        <DeformationFieldset categories={draft.categories} findings={findings} />
+        <SnowFieldset categories={draft.categories} findings={findings} />
+        <FindingLines id="f-groups" findings={findings.filter((f) => /^(deformation|snow)\.[a-z]$/.test(f.path))} />
 
         <fieldset className="form-section" data-section="surface">
           <legend>Trace, remaining ice, open water, ponds, bergs</legend>

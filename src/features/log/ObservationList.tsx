@@ -7,7 +7,7 @@ import { useEffect, useMemo, useRef, type KeyboardEvent } from 'react';
 import { deriveEggCode, eggCodeText } from '../../domain/eggCode';
 import type { Cruise, Finding, Observation } from '../../domain/model';
 import { polarisForObservation } from '../../domain/polaris';
-import { groupMissed, missedSlotsBetween, type MissedRun } from '../../domain/watch';
+import { groupMissed, missedRunText, missedSlotsBetween, type MissedRun } from '../../domain/watch';
 import { useSelection } from '../../state/selection';
 import { cruiseFindings } from './findings';
 import { showPosition } from './positionText';
@@ -56,11 +56,13 @@ interface Props {
   onHistory: (o: Observation) => void;
   /** Height of the scrolling area in px. */
   height?: number;
+  /** With a ship server: the highest revision of each observation the server holds. */
+  onServer?: ReadonlyMap<string, number> | null;
 }
 
 const ROW_HEIGHT = 52;
 
-export function ObservationList({ cruise, observations, onEdit, onHistory, height = 420 }: Props) {
+export function ObservationList({ cruise, observations, onEdit, onHistory, height = 420, onServer = null }: Props) {
   const rows = useMemo(() => buildRows(cruise, observations), [cruise, observations]);
   const selectedId = useSelection((s) => s.selectedId);
   const select = useSelection((s) => s.select);
@@ -168,8 +170,7 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
               return (
                 <div key={`m-${r.run.from}`} className="list-row missed" style={style} role="option" aria-selected={false} data-testid="missed-row">
                   <span className="finding finding-warning">
-                    Missed: {r.run.from.replace('T', ' ').slice(0, 16)}
-                    {r.run.count > 1 ? ` to ${r.run.to.slice(11, 16)} (${r.run.count} observations)` : ''}
+                    Missed: {missedRunText(r.run)}
                   </span>
                 </div>
               );
@@ -190,7 +191,10 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
                 onDoubleClick={() => onEdit(o)}
                 data-testid="observation-row"
               >
-                <span className="cell-time">{o.time.replace('T', ' ').slice(0, 16)}</span>
+                <span className="cell-time">
+                  {o.time.replace('T', ' ').slice(0, 16)}
+                  {onServer && <ServerMark reached={(onServer.get(o.id) ?? 0) >= o.revision} />}
+                </span>
                 <span>{observers.get(o.observerId) ?? '?'}</span>
                 <span className="cell-position">{showPosition(o.position)}</span>
                 <span>{o.totalConcentration ?? 'X'}</span>
@@ -208,5 +212,14 @@ export function ObservationList({ cruise, observations, onEdit, onHistory, heigh
         </div>
       </div>
     </section>
+  );
+}
+
+/** Whether this revision reached the ship server: a word, not only a colour or a symbol. */
+function ServerMark({ reached }: { reached: boolean }) {
+  return (
+    <span className={`server-mark${reached ? ' reached' : ''}`} data-testid="server-mark" title={reached ? 'This revision is on the ship server' : 'Not on the ship server yet: waiting to send'}>
+      {reached ? ' on server' : ' waiting'}
+    </span>
   );
 }

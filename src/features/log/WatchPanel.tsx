@@ -3,7 +3,7 @@
 import { useMemo, useState } from 'react';
 import { setSetting } from '../../db';
 import type { Cruise, Observation } from '../../domain/model';
-import { formatCountdown, groupMissed, watchStatus, type WatchStatus } from '../../domain/watch';
+import { formatCountdown, groupMissed, missedRunText, watchStatus, type WatchStatus } from '../../domain/watch';
 import { useObservationForm } from '../../state/observationForm';
 import { useWatchStore } from '../../state/watch';
 import { askNotificationPermission, notificationPermission } from './alarm';
@@ -11,10 +11,10 @@ import { useNow, zoneTime } from './useNow';
 
 export function useWatch(cruise: Cruise, observations: readonly Observation[], now: Date): WatchStatus {
   const times = useMemo(() => observations.map((o) => o.time), [observations]);
-  return watchStatus(now, times, { intervalMinutes: cruise.intervalMinutes });
+  return watchStatus(now, times, { intervalMinutes: cruise.intervalMinutes, ...(cruise.endTime ? { endTime: cruise.endTime } : {}) });
 }
 
-const STATE_WORDS = { waiting: 'Next observation', due: 'Observation due', overdue: 'Observation overdue' } as const;
+const STATE_WORDS = { waiting: 'Next observation', due: 'Observation due', overdue: 'Observation overdue', ended: 'Cruise ended' } as const;
 
 /** Hands the watch to another observer: one choice, kept across reloads. */
 export function handOver(cruiseId: string, observerId: string): void {
@@ -55,15 +55,23 @@ export function WatchPanel({ cruise, observations }: { cruise: Cruise; observati
         </select>
         {since && <span className="muted small">since {since.slice(11, 16)} UTC</span>}
       </div>
-      <div className="watch-countdown" role="timer" aria-live="off">
-        <span className="watch-state">{STATE_WORDS[status.state]}</span>{' '}
-        <strong>
-          {status.nextDue.slice(11, 16)} UTC
-        </strong>{' '}
-        <span className="muted">({zoneTime(due, cruise.displayTimeZone)} {cruise.displayTimeZone})</span>{' '}
-        <span className="watch-remaining" data-testid="watch-remaining">{formatCountdown(status.msToDue)}</span>
-      </div>
-      {status.state !== 'waiting' && (
+      {status.state === 'ended' && (
+        <p className="watch-ended" data-testid="watch-ended">
+          <span className="watch-state">{STATE_WORDS.ended}</span> at {cruise.endTime?.slice(11, 16)} UTC on {cruise.endTime?.slice(0, 10)}: no
+          observation is due and no alarm sounds. Change the end in Settings to resume the watch.
+        </p>
+      )}
+      {status.state !== 'ended' && (
+        <div className="watch-countdown" role="timer" aria-live="off">
+          <span className="watch-state">{STATE_WORDS[status.state]}</span>{' '}
+          <strong>
+            {status.nextDue.slice(11, 16)} UTC
+          </strong>{' '}
+          <span className="muted">({zoneTime(due, cruise.displayTimeZone)} {cruise.displayTimeZone})</span>{' '}
+          <span className="watch-remaining" data-testid="watch-remaining">{formatCountdown(status.msToDue)}</span>
+        </div>
+      )}
+      {(status.state === 'due' || status.state === 'overdue') && (
         <p className="watch-alert" role="alert">
           {status.state === 'due' ? 'The observation is due now.' : `The ${status.nextDue.slice(11, 16)} UTC observation is overdue.`}
           {silenced !== status.nextDue && (
@@ -91,7 +99,7 @@ export function WatchPanel({ cruise, observations }: { cruise: Cruise; observati
           <ul data-testid="missed-list">
             {runs.map((r) => (
               <li key={r.from} className="finding finding-warning">
-                {r.count === 1 ? `${r.from.slice(11, 16)} UTC` : `${r.from.slice(11, 16)}–${r.to.slice(11, 16)} UTC (${r.count} observations)`} on {r.from.slice(0, 10)}
+                {missedRunText(r)}
               </li>
             ))}
           </ul>

@@ -2,7 +2,8 @@
 // with the differing lines marked.
 import { eggCodeText, deriveEggCode } from '../../domain/eggCode';
 import type { Observation, Observer } from '../../domain/model';
-import { FLOE_SIZES, OPEN_WATER_LABELS, SNOW_LABELS, STAGES } from '../../domain/nomenclature';
+import { deformationOf, snowOf } from '../../domain/iceTypes';
+import { FLOE_SIZES, OPEN_WATER_LABELS, SNOW_COVER_LABELS, SNOW_WETNESS, STAGES } from '../../domain/nomenclature';
 import { CATEGORY_LETTERS, type ObservationFields } from './formModel';
 import { POSITION_SOURCE_LABELS } from './options';
 import { showPosition } from './positionText';
@@ -29,12 +30,31 @@ export function versionLines(o: Version, observers: readonly Observer[]): [strin
     lines.push(
       [`${l}: concentration`, v(c?.partialConcentration)],
       [`${l}: stage`, c ? STAGES[c.stage].label : ''],
-      [`${l}: thickness`, v(c?.thicknessCm, ' cm')],
       [`${l}: floe size`, c?.floeSize ? FLOE_SIZES[c.floeSize].label : ''],
-      [`${l}: ridged / rafted`, c && (c.ridgedTenths !== undefined || c.raftedTenths !== undefined) ? `${v(c.ridgedTenths)} / ${v(c.raftedTenths)}` : ''],
-      [`${l}: sail height`, v(c?.sailHeightM, ' m')],
-      [`${l}: snow`, c?.snowKind ? `${SNOW_LABELS[c.snowKind]}${c.snowDepthCm !== undefined ? `, ${c.snowDepthCm} cm` : ''}` : v(c?.snowDepthCm, ' cm')],
+      [`${l}: thickness`, v(c?.thicknessCm, ' cm')],
     );
+  }
+  for (let i = 0; i < 3; i++) {
+    const d = deformationOf(o, i);
+    const l = CATEGORY_LETTERS[i] ?? String(i + 1);
+    lines.push(
+      [`${l}: ridged / rafted`, d && (d.ridgedTenths !== undefined || d.raftedTenths !== undefined) ? `${v(d.ridgedTenths)} / ${v(d.raftedTenths)}` : ''],
+      [`${l}: sail height`, v(d?.sailHeightM, ' m')],
+    );
+  }
+  for (let i = 0; i < 3; i++) {
+    const s = snowOf(o, i);
+    const l = CATEGORY_LETTERS[i] ?? String(i + 1);
+    const parts = s
+      ? [
+          s.cover ? SNOW_COVER_LABELS[s.cover] : '',
+          s.wetness ? SNOW_WETNESS[s.wetness].label.toLowerCase() : '',
+          s.crust ? 'crust' : '',
+          s.drifts ? 'drifts' : '',
+          v(s.depthCm, ' cm'),
+        ].filter((x) => x !== '')
+      : [];
+    lines.push([`${l}: snow`, parts.join(', ')]);
   }
   lines.push(
     ['Trace So', o.traceStage ? STAGES[o.traceStage].label : ''],

@@ -16,7 +16,11 @@ export async function loadDemoCruise(onProgress?: (p: DemoLoadProgress) => void)
     await setActiveCruise(id);
     return { cruiseId: id, observations: demo.observations.length, trackPoints: demo.track.length, alreadyThere: true };
   }
-  await createCruise({ ...rest, id });
+  // The demo cruise lies in the past: it ends an interval after its last observation, so its
+  // watch never calls for an observation or counts missed hours today.
+  const last = demo.observations.reduce((m, o) => Math.max(m, Date.parse(o.time)), 0);
+  const endTime = new Date(last + demo.cruise.intervalMinutes * 60_000).toISOString().replace(/\.\d{3}Z$/, 'Z');
+  await createCruise({ ...rest, id, endTime });
   const total = demo.observations.length;
   onProgress?.({ done: 0, total, what: 'observations' });
   let done = 0;

@@ -1,8 +1,10 @@
 // Between the form's typed text and the observation model: reading a draft into an observation
 // (with a finding for every value that cannot be read, named by field), and turning a stored
 // observation back into a draft (to edit it, or to start the next one from it).
-import type {
-  Finding, IceCategory, Observation, Position, StageKey,
+import { groupFromList, groupToList } from '../../domain/iceTypes';
+import {
+  ICE_TYPE_LETTERS,
+  type Deformation, type Finding, type IceCategory, type Observation, type Position, type SnowCover, type StageKey,
 } from '../../domain/model';
 import { toIsoUtc } from '../../domain/watch';
 import {
@@ -88,15 +90,19 @@ export function readTime(text: string, now: Date): { ok: true; iso: string } | {
 }
 
 /** Ice types are named a, b, c as the egg code's columns are. */
-export const CATEGORY_LETTERS = ['a', 'b', 'c'] as const;
+export const CATEGORY_LETTERS = ICE_TYPE_LETTERS;
 
-/** True when a category row holds nothing at all (it is then left out). */
-export function isBlankCategory(c: CategoryDraft): boolean {
+/** True when an ice type's deformation and snow rows hold nothing. */
+function blankGroups(c: CategoryDraft): boolean {
   return (
-    c.partial.trim() === '' && c.stage === '' && c.thicknessCm.trim() === '' && c.floeSize === '' &&
-    c.ridged.trim() === '' && c.rafted.trim() === '' && c.sailHeightM.trim() === '' && c.snowKind === '' &&
-    c.snowDepthCm.trim() === ''
+    c.ridged.trim() === '' && c.rafted.trim() === '' && c.sailHeightM.trim() === '' &&
+    c.snowCover === '' && c.snowWetness === '' && !c.snowCrust && !c.snowDrifts && c.snowDepthCm.trim() === ''
   );
+}
+
+/** True when an ice type row (with its deformation and snow) holds nothing at all (it is then left out). */
+export function isBlankCategory(c: CategoryDraft): boolean {
+  return c.partial.trim() === '' && c.stage === '' && c.thicknessCm.trim() === '' && c.floeSize === '' && blankGroups(c);
 }
 
 function readCategory(
@@ -118,24 +124,41 @@ function readCategory(
   const partialConcentration = partial ?? (single ? total : undefined);
   if (partialConcentration === undefined) {
     if (c.partial.trim() === '') {
-      findings.push(inputError(`${p}.partialConcentration`, `Ice type ${letter}: give its concentration in tenths (needed with more than one ice type).`));
+      findings.push(inputError(`${p}.partialConcentration`, `Ice type ${letter}: give its concentration in tenths (needed with more than one ice type, a remaining stage counts as one).`));
     }
     return null;
   }
+  // The egg code's order: concentration, stage, form, then thickness.
   const cat: IceCategory = { partialConcentration, stage };
+  if (c.floeSize !== '') cat.floeSize = c.floeSize;
   const thick = readNumber(c.thicknessCm, `${p}.thicknessCm`, `Ice type ${letter}, thickness`, findings);
   if (thick !== undefined) cat.thicknessCm = thick;
-  if (c.floeSize !== '') cat.floeSize = c.floeSize;
-  const ridged = readNumber(c.ridged, `${p}.ridgedTenths`, `Ice type ${letter}, ridged share`, findings, { integer: true });
-  if (ridged !== undefined) cat.ridgedTenths = ridged;
-  const rafted = readNumber(c.rafted, `${p}.raftedTenths`, `Ice type ${letter}, rafted share`, findings, { integer: true });
-  if (rafted !== undefined) cat.raftedTenths = rafted;
-  const sail = readNumber(c.sailHeightM, `${p}.sailHeightM`, `Ice type ${letter}, sail height`, findings);
-  if (sail !== undefined) cat.sailHeightM = sail;
-  if (c.snowKind !== '') cat.snowKind = c.snowKind;
-  const snow = readNumber(c.snowDepthCm, `${p}.snowDepthCm`, `Ice type ${letter}, snow depth`, findings);
-  if (snow !== undefined) cat.snowDepthCm = snow;
   return cat;
+}
+
+function readDeformation(c: CategoryDraft, index: number, findings: Finding[]): Deformation {
+  const letter = CATEGORY_LETTERS[index] ?? String(index + 1);
+  const p = `deformation.${letter}`;
+  const d: Deformation = {};
+  const ridged = readNumber(c.ridged, `${p}.ridgedTenths`, `Deformation of ice type ${letter}, ridged share`, findings, { integer: true });
+  if (ridged !== undefined) d.ridgedTenths = ridged;
+  const rafted = readNumber(c.rafted, `${p}.raftedTenths`, `Deformation of ice type ${letter}, rafted share`, findings, { integer: true });
+  if (rafted !== undefined) d.raftedTenths = rafted;
+  const sail = readNumber(c.sailHeightM, `${p}.sailHeightM`, `Deformation of ice type ${letter}, sail height`, findings);
+  if (sail !== undefined) d.sailHeightM = sail;
+  return d;
+}
+
+function readSnow(c: CategoryDraft, index: number, findings: Finding[]): SnowCover {
+  const letter = CATEGORY_LETTERS[index] ?? String(index + 1);
+  const s: SnowCover = {};
+  if (c.snowCover !== '') s.cover = c.snowCover;
+  if (c.snowWetness !== '') s.wetness = c.snowWetness;
+  if (c.snowCrust) s.crust = true;
+  if (c.snowDrifts) s.drifts = true;
+  const depth = readNumber(c.snowDepthCm, `snow.${letter}.depthCm`, `Snow on ice type ${letter}, depth`, findings);
+  if (depth !== undefined) s.depthCm = depth;
+  return s;
 }
 
 /** The draft's categories that hold anything, with their index in the draft. */
@@ -169,10 +192,19 @@ export function readDraft(draft: ObservationDraft, ctx: DraftContext): DraftRead
   const total = readNumber(draft.total, 'totalConcentration', 'Total concentration', findings, { integer: true });
   const filled = filledCategories(draft);
   const categories: IceCategory[] = [];
+  const deformation: Deformation[] = [];
+  const snow: SnowCover[] = [];
+  // A single ice type takes Ct; one ice type with a remaining stage (Sd) is two ice types.
+  const single = filled.length === 1 && draft.remainingStage === '';
   filled.forEach((c, i) => {
-    const cat = readCategory(c, i, filled.length === 1, total, findings);
-    if (cat) categories.push(cat);
+    const cat = readCategory(c, i, single, total, findings);
+    if (!cat) return;
+    categories.push(cat);
+    deformation.push(readDeformation(c, i, findings));
+    snow.push(readSnow(c, i, findings));
   });
+  const deformationGroup = groupFromList(deformation);
+  const snowGroup = groupFromList(snow);
 
   const observation: ObservationFields = {
     id: ctx.id,
@@ -187,6 +219,8 @@ export function readDraft(draft: ObservationDraft, ctx: DraftContext): DraftRead
   };
   if (draft.traceStage !== '') observation.traceStage = draft.traceStage;
   if (draft.remainingStage !== '') observation.remainingStage = draft.remainingStage;
+  if (deformationGroup) observation.deformation = deformationGroup;
+  if (snowGroup) observation.snow = snowGroup;
 
   if (draft.openWaterKind !== '') {
     observation.openWater = { kind: draft.openWaterKind };
@@ -228,19 +262,29 @@ export function readDraft(draft: ObservationDraft, ctx: DraftContext): DraftRead
 
 const str = (n: number | undefined) => (n === undefined ? '' : String(n));
 
-function categoryToDraft(c: IceCategory): CategoryDraft {
+function categoryToDraft(c: IceCategory, d: Deformation | undefined, s: SnowCover | undefined): CategoryDraft {
   return {
     ...emptyCategory(),
     partial: String(c.partialConcentration),
     stage: c.stage,
-    thicknessCm: str(c.thicknessCm),
     floeSize: c.floeSize ?? '',
-    ridged: str(c.ridgedTenths),
-    rafted: str(c.raftedTenths),
-    sailHeightM: str(c.sailHeightM),
-    snowKind: c.snowKind ?? '',
-    snowDepthCm: str(c.snowDepthCm),
+    thicknessCm: str(c.thicknessCm),
+    ridged: str(d?.ridgedTenths),
+    rafted: str(d?.raftedTenths),
+    sailHeightM: str(d?.sailHeightM),
+    snowCover: s?.cover ?? '',
+    snowWetness: s?.wetness ?? '',
+    snowCrust: s?.crust ?? false,
+    snowDrifts: s?.drifts ?? false,
+    snowDepthCm: str(s?.depthCm),
   };
+}
+
+function categoriesToDraft(o: Observation): CategoryDraft[] {
+  const n = o.categories.length;
+  const def = groupToList(o.deformation, n);
+  const snow = groupToList(o.snow, n);
+  return o.categories.map((c, i) => categoryToDraft(c, def[i], snow[i]));
 }
 
 /**
@@ -260,7 +304,7 @@ export function observationToDraft(
     position: o.position,
     positionText: o.position && o.position.source === 'manual' ? `${o.position.lat.toFixed(5)} ${o.position.lon.toFixed(5)}` : '',
     total: str(o.totalConcentration ?? undefined),
-    categories: o.categories.length > 0 ? o.categories.map(categoryToDraft) : [emptyCategory()],
+    categories: o.categories.length > 0 ? categoriesToDraft(o) : [emptyCategory()],
     traceStage: o.traceStage ?? '',
     remainingStage: o.remainingStage ?? '',
     openWaterKind: o.openWater?.kind ?? '',

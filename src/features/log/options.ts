@@ -1,10 +1,10 @@
 // The pick lists of the form, built from the domain's nomenclature tables (WMO-No. 259 terms
 // and egg-code symbols): the form never keeps a list of its own.
 import {
-  FLOE_SIZE_KEYS, OPEN_WATER_KINDS, SNOW_KINDS, STAGE_KEYS,
-  type FloeSizeKey, type Observer, type OpenWaterKind, type PositionSource, type SnowKind, type StageKey,
+  FLOE_SIZE_KEYS, OPEN_WATER_KINDS, SNOW_COVERS, SNOW_WETNESS_CLASSES, STAGE_KEYS,
+  type FloeSizeKey, type Observer, type OpenWaterKind, type PositionSource, type SnowCoverKey, type SnowWetness, type StageKey,
 } from '../../domain/model';
-import { FLOE_SIZES, OPEN_WATER_LABELS, SNOW_LABELS, STAGES } from '../../domain/nomenclature';
+import { FLOE_SIZES, OPEN_WATER_LABELS, SNOW_COVER_LABELS, SNOW_WETNESS, STAGES } from '../../domain/nomenclature';
 import type { MeltPondState } from '../../state/observationForm';
 import type { PickOption } from './PickList';
 
@@ -20,7 +20,14 @@ export const FLOE_SIZE_OPTIONS: PickOption<FloeSizeKey>[] = FLOE_SIZE_KEYS.map((
   code: FLOE_SIZES[k].eggCode,
 }));
 
-export const SNOW_OPTIONS: PickOption<SnowKind>[] = SNOW_KINDS.map((k) => ({ value: k, label: SNOW_LABELS[k] }));
+export const SNOW_COVER_OPTIONS: PickOption<SnowCoverKey>[] = SNOW_COVERS.map((k) => ({ value: k, label: SNOW_COVER_LABELS[k] }));
+
+/** Wetness classes with their one-letter codes (Fierz et al. 2009), so `W` or `V` picks by code. */
+export const SNOW_WETNESS_OPTIONS: PickOption<SnowWetness>[] = SNOW_WETNESS_CLASSES.map((k) => ({
+  value: k,
+  label: SNOW_WETNESS[k].label,
+  code: SNOW_WETNESS[k].code,
+}));
 
 export const OPEN_WATER_OPTIONS: PickOption<OpenWaterKind>[] = OPEN_WATER_KINDS.map((k) => ({
   value: k,

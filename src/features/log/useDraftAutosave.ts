@@ -2,7 +2,7 @@
 // and brought back when the log screen opens (after a reload, a crash or a closed lid).
 import { useEffect, useState } from 'react';
 import { listDrafts, loadDraft, saveDraft } from '../../db';
-import { useObservationForm, type EditTarget, type ObservationDraft } from '../../state/observationForm';
+import { useObservationForm, withCategoryDefaults, type EditTarget, type ObservationDraft } from '../../state/observationForm';
 import { OBSERVATION_DRAFT_FORM } from './logData';
 
 export interface StoredDraft {
@@ -43,7 +43,7 @@ export function useDraftAutosave(cruiseId: string, newDraft: () => ObservationDr
       const edit = edits.find((d) => d.form.startsWith(`${OBSERVATION_DRAFT_FORM}:`));
       const pick = edit && (!row || edit.savedAt > row.savedAt) ? edit : row;
       if (pick && isStoredDraft(pick.data)) {
-        useObservationForm.getState().load(cruiseId, pick.data.draft, pick.data.editing, true);
+        useObservationForm.getState().load(cruiseId, withCategoryDefaults(pick.data.draft), pick.data.editing, true);
         setRestored(pick.savedAt);
       } else {
         useObservationForm.getState().load(cruiseId, newDraft(), null, false);
@@ -75,7 +75,7 @@ export function useDraftAutosave(cruiseId: string, newDraft: () => ObservationDr
 export async function resumeNewEntry(cruiseId: string, fresh: () => ObservationDraft): Promise<void> {
   const row = await loadDraft<unknown>(cruiseId, OBSERVATION_DRAFT_FORM).catch(() => undefined);
   const form = useObservationForm.getState();
-  if (row && isStoredDraft(row.data) && !row.data.editing) form.load(cruiseId, row.data.draft, null, true);
+  if (row && isStoredDraft(row.data) && !row.data.editing) form.load(cruiseId, withCategoryDefaults(row.data.draft), null, true);
   else form.load(cruiseId, fresh(), null, false);
 }
 
@@ -83,7 +83,7 @@ export async function resumeNewEntry(cruiseId: string, fresh: () => ObservationD
 export async function openEdit(cruiseId: string, id: string, fromStored: () => StoredDraft): Promise<void> {
   const row = await loadDraft<unknown>(cruiseId, `${OBSERVATION_DRAFT_FORM}:${id}`).catch(() => undefined);
   const form = useObservationForm.getState();
-  if (row && isStoredDraft(row.data) && row.data.editing) form.load(cruiseId, row.data.draft, row.data.editing, true);
+  if (row && isStoredDraft(row.data) && row.data.editing) form.load(cruiseId, withCategoryDefaults(row.data.draft), row.data.editing, true);
   else {
     const d = fromStored();
     form.load(cruiseId, d.draft, d.editing, false);

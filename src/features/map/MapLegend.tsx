@@ -1,4 +1,6 @@
-import { BANDS, hexColour, MIZ_LEGEND } from './concentrationBands';
+import { BandSwatch } from './BandSwatch';
+import { hasMarks, MARK_WORDS } from './bandSymbols';
+import { BANDS, MIZ_LEGEND } from './concentrationBands';
 import { PALETTES, type MapTheme } from './style';
 
 /** What the colours and lines mean, with their sources. */
@@ -10,12 +12,15 @@ export function MapLegend({ theme }: { theme: MapTheme }) {
       <ul>
         {BANDS.map((b) => (
           <li key={b.key}>
-            <span className="swatch" style={{ background: hexColour(b.rgb) }} aria-hidden="true" />
+            <BandSwatch band={b.key} theme={theme} />
             {b.label}
+            {hasMarks(theme) && <span className="sr-only">, {MARK_WORDS[b.key]}</span>}
           </li>
         ))}
       </ul>
-      <p className="legend-source">Colours: WMO ice chart colour standard (WMO/TD-No. 1215); fast ice colour from a draft.</p>
+      {theme === 'day' && <p className="legend-source">Colours: WMO ice chart colour standard (WMO/TD-No. 1215); fast ice colour from a draft.</p>}
+      {theme === 'night' && <p className="legend-source">Colours: WMO ice chart colour standard (WMO/TD-No. 1215), dimmed for the night; fast ice colour from a draft.</p>}
+      {theme === 'red' && <p className="legend-source">Red display: more ice is brighter, and each class has its own mark (our own design; by day the WMO/TD-No. 1215 colours).</p>}
       <ul>
         <li>
           <span className="line-swatch" style={{ background: p.miz, opacity: 0.6, height: 8 }} aria-hidden="true" />

@@ -5,6 +5,7 @@ import type { Observation, Observer } from '../../domain/model';
 import { STAGES } from '../../domain/nomenclature';
 import { deriveEggCode, eggCodeText } from '../../domain/eggCode';
 import { formatPosition } from '../../domain/position';
+import { iceTypeName } from '../../domain/iceTypes';
 import { band, bandOfObservation } from './concentrationBands';
 
 export function ObservationDetails({
@@ -65,14 +66,14 @@ export function ObservationDetails({
           </>
         )}
         <dt>Egg code</dt>
-        <dd className="mono">{eggCodeText(deriveEggCode(observation))}</dd>
+        <dd className="egg-line">{eggCodeText(deriveEggCode(observation))}</dd>
         {observation.categories.map((c, i) => (
           <div key={i} className="details-row">
-            <dt>Ice type {i + 1}</dt>
+            <dt>{iceTypeName(i)}</dt>
             <dd>
               {c.partialConcentration}/10 {c.stage.replace(/-/g, ' ')}
-              {c.thicknessCm !== undefined ? `, ${c.thicknessCm} cm` : ''}
               {c.floeSize ? `, ${c.floeSize.replace(/-/g, ' ')}` : ''}
+              {c.thicknessCm !== undefined ? `, ${c.thicknessCm} cm` : ''}
             </dd>
           </div>
         ))}

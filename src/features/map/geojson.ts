@@ -2,7 +2,7 @@
 // MapLibre, no DOM, so every rule here is unit-tested in Node.
 import type { Feature, FeatureCollection, LineString, MultiLineString, Point, Position } from 'geojson';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
-import { band, bandOfObservation, hexColour, inMarginalIceZone, type BandKey } from './concentrationBands';
+import { BANDS, bandOfObservation, hexColour, inMarginalIceZone, type BandKey } from './concentrationBands';
 import { beyondMercator, mizFeatures, pieceCoords, range, seamPieces, type TrackArrays } from './trackLevels';
 
 export interface ObservationProps {
@@ -20,39 +20,93 @@ export interface ObservationProps {
   polar: boolean;
 }
 
-export interface BuildOptions {
-  observers?: readonly Observer[];
-  /** The egg code image key of an observation ('' for none); by default `egg:<id>`, drawn on demand. */
-  eggKey?: (o: Observation) => string;
-}
-
 function timeMs(iso: string): number {
   return Date.parse(iso);
 }
 
-/** Observations with a position, as points; deleted ones are left out. */
-export function observationFeatures(observations: readonly Observation[], opts: BuildOptions = {}): FeatureCollection<Point, ObservationProps> {
-  const initials = new Map((opts.observers ?? []).map((o) => [o.id, o.initials]));
-  const features: Feature<Point, ObservationProps>[] = [];
-  for (const o of observations) {
-    if (o.deleted || !o.position) continue;
-    const key = bandOfObservation(o);
-    features.push({
+export interface BuildOptions {
+  observers?: readonly Observer[];
+}
+
+/**
+ * Observations with a position as columns: what the map worker needs to write their GeoJSON,
+ * built in one light loop on the page and handed over as buffers.
+ */
+export interface ObservationColumns {
+  ids: string[];
+  lon: Float64Array;
+  lat: Float64Array;
+  /** ms since 1970. */
+  t: Float64Array;
+  /** Index into BANDS. */
+  band: Uint8Array;
+  /** Index into observerIds / initials. */
+  observer: Uint16Array;
+  observerIds: string[];
+  initials: string[];
+}
+
+/** Bands from the lowest to the highest concentration: a group of observations takes the highest one's colour. */
+export const BAND_RANK: readonly BandKey[] = ['not-judged', 'ice-free', 'open-water', 'c1-3', 'c4-6', 'c7-8', 'c9-10', 'fast-ice'];
+
+/** Observations with a position as columns; deleted ones are left out. */
+export function packObservations(observations: readonly Observation[], observers: readonly Observer[] = []): ObservationColumns {
+  const initialsOf = new Map(observers.map((o) => [o.id, o.initials]));
+  const observerIndex = new Map<string, number>();
+  const observerIds: string[] = [];
+  const initials: string[] = [];
+  const bandIndex = new Map(BANDS.map((b, i) => [b.key, i]));
+  const kept = observations.filter((o) => !o.deleted && o.position);
+  const n = kept.length;
+  const c: ObservationColumns = {
+    ids: new Array<string>(n), lon: new Float64Array(n), lat: new Float64Array(n), t: new Float64Array(n),
+    band: new Uint8Array(n), observer: new Uint16Array(n), observerIds, initials,
+  };
+  for (let i = 0; i < n; i++) {
+    const o = kept[i] as Observation;
+    const pos = o.position as NonNullable<Observation['position']>;
+    let k = observerIndex.get(o.observerId);
+    if (k === undefined) {
+      k = observerIds.length;
+      observerIndex.set(o.observerId, k);
+      observerIds.push(o.observerId);
+      initials.push(initialsOf.get(o.observerId) ?? '');
+    }
+    c.ids[i] = o.id;
+    c.lon[i] = pos.lon;
+    c.lat[i] = pos.lat;
+    c.t[i] = timeMs(o.time);
+    c.band[i] = bandIndex.get(bandOfObservation(o)) as number;
+    c.observer[i] = k;
+  }
+  return c;
+}
+
+/** The observation points from their columns; `rank` orders the bands for grouped symbols. */
+export function observationFeaturesFromColumns(c: ObservationColumns): FeatureCollection<Point, ObservationProps & { rank: number }> {
+  const colours = BANDS.map((b) => hexColour(b.rgb));
+  const ranks = BANDS.map((b) => BAND_RANK.indexOf(b.key));
+  const features: Feature<Point, ObservationProps & { rank: number }>[] = new Array(c.ids.length);
+  for (let i = 0; i < c.ids.length; i++) {
+    const b = c.band[i] as number;
+    const k = c.observer[i] as number;
+    const id = c.ids[i] as string;
+    const lat = c.lat[i] as number;
+    features[i] = {
       type: 'Feature',
-      geometry: { type: 'Point', coordinates: [o.position.lon, o.position.lat] },
+      geometry: { type: 'Point', coordinates: [c.lon[i] as number, lat] },
       properties: {
-        id: o.id,
-        band: key,
-        colour: hexColour(band(key).rgb),
-        t: timeMs(o.time),
-        observerId: o.observerId,
-        initials: initials.get(o.observerId) ?? '',
-        egg: opts.eggKey ? opts.eggKey(o) : `egg:${o.id}`,
-        polar: beyondMercator(o.position.lat),
+        id, band: (BANDS[b] as (typeof BANDS)[number]).key, colour: colours[b] as string, rank: ranks[b] as number, t: c.t[i] as number,
+        observerId: c.observerIds[k] as string, initials: c.initials[k] as string, egg: `egg:${id}`, polar: beyondMercator(lat),
       },
-    });
+    };
   }
   return { type: 'FeatureCollection', features };
+}
+
+/** Observations with a position, as points; deleted ones are left out. */
+export function observationFeatures(observations: readonly Observation[], opts: BuildOptions = {}): FeatureCollection<Point, ObservationProps> {
+  return observationFeaturesFromColumns(packObservations(observations, opts.observers));
 }
 
 /** Track points sorted by time (the store keeps them so; imports may not). */
@@ -162,4 +216,13 @@ export function shipFeature(track: readonly TrackPoint[], observations: readonly
 
 export function featureCollection<G extends LineString | MultiLineString | Point, P>(features: (Feature<G, P> | null)[]): FeatureCollection<G, P> {
   return { type: 'FeatureCollection', features: features.filter((f): f is Feature<G, P> => f !== null) };
+}
+
+/**
+ * The map source's points: those within the Mercator limit (the polar overlay draws the others,
+ * and a group of points must never take one in), with `rank` for the grouped symbols.
+ */
+export function mapObservationFeatures(c: ObservationColumns): FeatureCollection<Point, ObservationProps & { rank: number }> {
+  const fc = observationFeaturesFromColumns(c);
+  return { type: 'FeatureCollection', features: fc.features.filter((f) => !f.properties.polar) };
 }

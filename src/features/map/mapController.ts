@@ -8,15 +8,18 @@ import type { FeatureCollection } from 'geojson';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
 import { deriveEggCode, eggCodeDrawing } from '../../domain/eggCode';
 import { coarseLand, fineLandUrl, graticuleData } from './basemap';
-import { observationFeatures, observationZones, shipFeature, featureCollection } from './geojson';
+import { BANDS } from './concentrationBands';
+import { observationZones, packObservations, shipFeature, featureCollection } from './geojson';
 import { graticuleFilter, graticuleLabels, graticuleSteps } from './graticule';
-import { eggImage, IMAGE_PIXEL_RATIO, shipImage, textImage, type RasterImage } from './mapImages';
-import { MapWorker, packTrack, type PreparedPair } from './mapWorkerClient';
+import { eggImage, IMAGE_PIXEL_RATIO, markImage, shipImage, textImage, type RasterImage } from './mapImages';
+import { bandSymbol, hasMarks } from './bandSymbols';
+import type { BandKey } from './concentrationBands';
+import { MapWorker, packTrack, type PreparedPair, type SourceData } from './mapWorkerClient';
 import { beyondMercator, MERCATOR_LIMIT_LAT, type TrackArrays } from './trackLevels';
-import { PolarOverlay } from './polarOverlay';
+import { PolarOverlay, type PolarPoint } from './polarOverlay';
 import { IceInfoLayers } from './iceInfoMap';
 import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chartModel';
-import { buildStyle, eggFilter, LAYER, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
+import { buildStyle, EGG_MIN_ZOOM, eggFilter, LAYER, MARK_PREFIX, markImageRadius, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
 import { globeCamera, lonLatBounds, sample, type LonLat } from './view';
 
 export interface MapControllerOptions {
@@ -38,6 +41,8 @@ export interface MapData {
 }
 
 const EGG_PREFIX = 'egg:';
+/** How far from a symbol a tap still selects it, in CSS pixels (a fingertip is about 10 mm). */
+const TOUCH_SLOP_PX = 22;
 const LABEL_PREFIX = 'lbl:';
 /** How long blob: URLs of a removed map are kept, for a read MapLibre's worker had already begun. */
 const RELEASE_GRACE_MS = 10_000;
@@ -60,6 +65,10 @@ export class MapController {
   private obsPositions: LonLat[] = [];
   private trackPositions: LonLat[] = [];
   private trackRun = 0;
+  private obsRun = 0;
+  /** The observation points last handed to MapLibre, and what the egg source has. */
+  private obsData: SourceData | null = null;
+  private eggData: SourceData | null = null;
   private packed: { track: readonly TrackPoint[]; arrays: Promise<TrackArrays> } | null = null;
   /** Frees the blob URLs last given to each pair of sources. */
   private releases = new Map<string, () => void>();
@@ -82,7 +91,7 @@ export class MapController {
       fadeDuration: 0,
     });
     this.map.touchZoomRotate.disableRotation();
-    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme]);
+    this.overlay = new PolarOverlay(this.map, PALETTES[this.theme], this.theme);
     this.overlay.setEnabled(this.projection === 'globe');
     this.map.addControl(new NavigationControl({ showCompass: false }), 'top-right');
     this.map.addControl(new ScaleControl({ unit: 'nautical', maxWidth: 140 }), 'bottom-left');
@@ -99,16 +108,44 @@ export class MapController {
       if (e.originalEvent) this.userMoved = true;
       opts.onState?.('busy');
     });
-    this.map.on('moveend', () => this.updateLabels());
-    this.map.on('click', (e) => {
-      const polar = this.overlay.hit(e.point.x, e.point.y);
-      if (polar) return opts.onSelect(polar);
-      const hit = this.map.queryRenderedFeatures(e.point, { layers: [LAYER.observations] })[0] as MapGeoJSONFeature | undefined;
-      const id = hit?.properties?.id;
-      opts.onSelect(typeof id === 'string' ? id : null);
+    this.map.on('moveend', () => {
+      this.updateLabels();
+      this.feedEggsInZoom();
     });
-    this.map.on('mouseenter', LAYER.observations, () => (this.map.getCanvas().style.cursor = 'pointer'));
-    this.map.on('mouseleave', LAYER.observations, () => (this.map.getCanvas().style.cursor = ''));
+    this.map.on('click', (e) => this.selectAt(e.point.x, e.point.y, 2));
+    // A finger (or a gloved one) covers far more than a symbol: a short tap that did not move
+    // selects the nearest observation within a thumb's reach. MapLibre keeps touches for its
+    // gestures, so a tap does not always arrive as a click.
+    let touch: { x: number; y: number; t: number } | null = null;
+    this.map.on('touchstart', (e) => {
+      touch = e.points.length === 1 ? { x: e.point.x, y: e.point.y, t: performance.now() } : null;
+    });
+    this.map.on('touchend', (e) => {
+      if (touch && Math.hypot(e.point.x - touch.x, e.point.y - touch.y) < 10 && performance.now() - touch.t < 600) this.selectAt(e.point.x, e.point.y, TOUCH_SLOP_PX);
+      touch = null;
+    });
+    for (const layer of [LAYER.observations, LAYER.clusters]) {
+      this.map.on('mouseenter', layer, () => (this.map.getCanvas().style.cursor = 'pointer'));
+      this.map.on('mouseleave', layer, () => (this.map.getCanvas().style.cursor = ''));
+    }
+  }
+
+  /** Selects the observation drawn nearest to a point, within `slop` CSS pixels of its symbol. */
+  private selectAt(x: number, y: number, slop: number): void {
+    const polar = this.overlay.hit(x, y);
+    if (polar) return this.opts.onSelect(polar);
+    const group = this.map.queryRenderedFeatures([[x - slop, y - slop], [x + slop, y + slop]], { layers: [LAYER.clusters] })[0] as MapGeoJSONFeature | undefined;
+    if (group) return this.openGroup(group);
+    const hits = this.map.queryRenderedFeatures([[x - slop, y - slop], [x + slop, y + slop]], { layers: [LAYER.observations] }) as MapGeoJSONFeature[];
+    let best: { id: string; d: number } | null = null;
+    for (const h of hits) {
+      const id = h.properties?.id;
+      if (typeof id !== 'string' || h.geometry.type !== 'Point') continue;
+      const p = this.map.project(h.geometry.coordinates as [number, number]);
+      const d = Math.hypot(p.x - x, p.y - y);
+      if (!best || d < best.d) best = { id, d };
+    }
+    this.opts.onSelect(best?.id ?? null);
   }
 
   private onLoad(): void {
@@ -184,6 +221,8 @@ export class MapController {
     if (id.startsWith(EGG_PREFIX)) {
       const o = this.observations.get(id.slice(EGG_PREFIX.length));
       if (o) this.put(id, eggImage(eggCodeDrawing(deriveEggCode(o)), c.ink, c.paper));
+    } else if (id.startsWith(MARK_PREFIX)) {
+      this.put(id, markImage(bandSymbol(this.theme, id.slice(MARK_PREFIX.length) as BandKey), markImageRadius(this.theme)));
     } else if (id.startsWith(LABEL_PREFIX)) {
       this.put(id, textImage(id.slice(LABEL_PREFIX.length), PALETTES[this.theme].label, c.halo));
     }
@@ -220,6 +259,18 @@ export class MapController {
     return false;
   }
 
+  /** Zooms in to where a group of observations comes apart. */
+  private openGroup(group: MapGeoJSONFeature): void {
+    const clusterId = group.properties?.cluster_id;
+    const centre = group.geometry.type === 'Point' ? (group.geometry.coordinates as [number, number]) : null;
+    const src = this.source(SRC.observations);
+    if (typeof clusterId !== 'number' || !centre || !src) return;
+    void src.getClusterExpansionZoom(clusterId).then(
+      (zoom) => this.map.easeTo({ center: centre, zoom: Math.max(zoom, this.map.getZoom() + 1), duration: 400 }),
+      () => this.map.easeTo({ center: centre, zoom: this.map.getZoom() + 2, duration: 400 }),
+    );
+  }
+
   /** Another cruise: the next data frames the view afresh. */
   setCruise(id: string | null): void {
     if (id === this.cruiseId) return;
@@ -227,24 +278,54 @@ export class MapController {
     this.userMoved = false;
   }
 
-  /** New observations (the list changed): one setData, and the egg images start afresh. */
+  /**
+   * New observations (the list changed): packed into columns here (one light loop), written as
+   * GeoJSON by the map worker and read by MapLibre's worker from a URL, so no large object is
+   * built or copied on the page. The egg images start afresh.
+   */
   setObservations(observations: readonly Observation[], observers: readonly Observer[]): void {
+    const run = ++this.obsRun;
     this.observations = new Map(observations.map((o) => [o.id, o]));
-    const fc = observationFeatures(observations, { observers });
-    this.obsPositions = fc.features.map((f) => f.geometry.coordinates as unknown as LonLat);
-    // The overlay also redraws the map's own symbols just inside the limit, so its lines
-    // (which end at the limit) never cover them.
-    this.overlay.setPoints(
-      fc.features
-        .filter((f) => Math.abs(f.geometry.coordinates[1] as number) > MERCATOR_LIMIT_LAT - 0.5)
-        .map((f) => ({ id: f.properties.id, lon: f.geometry.coordinates[0] as number, lat: f.geometry.coordinates[1] as number, colour: f.properties.colour, t: f.properties.t, observerId: f.properties.observerId })),
-    );
-    this.whenLoaded(() => {
-      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX)) this.map.removeImage(id);
-      this.source(SRC.observations)?.setData(fc);
-      if (this.selected) this.map.setFeatureState({ source: SRC.observations, id: this.selected }, { selected: true });
-      this.frameOnce();
+    const cols = packObservations(observations, observers);
+    const positions: LonLat[] = new Array(cols.ids.length);
+    const nearPole: PolarPoint[] = [];
+    for (let i = 0; i < cols.ids.length; i++) {
+      const lon = cols.lon[i] as number;
+      const lat = cols.lat[i] as number;
+      positions[i] = [lon, lat];
+      // The overlay also redraws the map's own symbols just inside the limit, so its lines
+      // (which end at the limit) never cover them.
+      if (Math.abs(lat) > MERCATOR_LIMIT_LAT - 0.5) {
+        const b = BANDS[cols.band[i] as number] as (typeof BANDS)[number];
+        nearPole.push({ id: cols.ids[i] as string, lon, lat, band: b.key, t: cols.t[i] as number, observerId: cols.observerIds[cols.observer[i] as number] as string });
+      }
+    }
+    this.obsPositions = positions;
+    this.overlay.setPoints(nearPole);
+    void this.worker.observations(cols).then((prepared) => {
+      if (run !== this.obsRun || this.destroyed) return prepared.release();
+      this.whenLoaded(() => {
+        for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX)) this.map.removeImage(id);
+        this.source(SRC.observations)?.setData(prepared.data as FeatureCollection | string);
+        const previous = this.releases.get(SRC.observations);
+        if (previous) this.releaseWhenIdle.push(previous);
+        this.releases.set(SRC.observations, prepared.release);
+        this.obsData = prepared.data;
+        this.feedEggsInZoom();
+        if (this.selected) this.map.setFeatureState({ source: SRC.observations, id: this.selected }, { selected: true });
+        this.frameOnce();
+      });
     });
+  }
+
+  /**
+   * The egg codes' source gets the points only once the map is at their zoom: below it the
+   * layer is hidden anyway, and MapLibre would still index and tile every point for it.
+   */
+  private feedEggsInZoom(): void {
+    if (this.obsData === null || this.eggData === this.obsData || this.map.getZoom() < EGG_MIN_ZOOM - 0.5) return;
+    this.eggData = this.obsData;
+    this.source(SRC.eggs)?.setData(this.obsData as FeatureCollection | string);
   }
 
   /** A new track: packed in slices here, simplified in the worker, handed to MapLibre as a URL. */
@@ -288,6 +369,7 @@ export class MapController {
     this.overlay.setFilter((p) => (filter.fromMs === null || p.t >= filter.fromMs) && (filter.toMs === null || p.t <= filter.toMs) && (filter.observerIds.length === 0 || filter.observerIds.includes(p.observerId)));
     this.whenLoaded(() => {
       this.map.setFilter(LAYER.observations, observationLayerFilter(this.filter));
+      this.map.setFilter(LAYER.marks, observationLayerFilter(this.filter));
       this.map.setFilter(LAYER.egg, eggFilter(this.filter));
     });
   }
@@ -314,14 +396,16 @@ export class MapController {
   setTheme(theme: MapTheme): void {
     if (theme === this.theme) return;
     this.theme = theme;
-    this.overlay.setPalette(PALETTES[theme]);
+    this.overlay.setPalette(PALETTES[theme], theme);
     this.whenLoaded(() => {
       this.iceInfo?.setTheme(theme);
       const style = buildStyle({ theme, projection: this.projection, land110: coarseLand().land, coast110: coarseLand().coast, graticule: graticuleData() });
       for (const layer of style.layers) {
         for (const [prop, value] of Object.entries(layer.paint ?? {})) this.map.setPaintProperty(layer.id, prop, value);
       }
-      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX)) this.map.removeImage(id);
+      // The marks layer is the one whose layout differs between displays.
+      this.map.setLayoutProperty(LAYER.marks, 'visibility', hasMarks(theme) ? 'visible' : 'none');
+      for (const id of this.map.listImages()) if (id.startsWith(EGG_PREFIX) || id.startsWith(LABEL_PREFIX) || id.startsWith(MARK_PREFIX)) this.map.removeImage(id);
       this.addShipImage();
       this.updateLabels();
     });

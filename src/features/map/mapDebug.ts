@@ -15,6 +15,8 @@ export interface MapDebug {
   jumpTo: (lon: number, lat: number, zoom: number) => void;
   frame: () => void;
   fineLand: () => string;
+  /** The raster of an image the map holds (e.g. `egg:<id>`), or null while it is not drawn. */
+  image: (id: string) => { width: number; height: number; data: number[] } | null;
   /** Stores a cruise with its observations and track and makes it the active one. */
   loadCruise: (cruise: Cruise, observations: Observation[], track: TrackPoint[]) => Promise<void>;
 }
@@ -42,6 +44,10 @@ export function installMapDebug(c: MapController): () => void {
     jumpTo: (lon, lat, zoom) => c.map.jumpTo({ center: [lon, lat], zoom }),
     frame: () => c.frame(),
     fineLand: () => c.fineLand,
+    image: (id) => {
+      const img = c.map.getImage(id);
+      return img ? { width: img.data.width, height: img.data.height, data: Array.from(img.data.data) } : null;
+    },
     loadCruise: async (cruise, observations, track) => {
       const stored = await createCruise(cruise);
       for (const o of observations) await saveObservation({ ...o, cruiseId: stored.id });

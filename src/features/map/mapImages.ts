@@ -3,6 +3,7 @@
 // needs no glyph PBFs (MapLibre's text layers need them, and we ship no font files); the text
 // is a code or a number we made, never user input, and it never passes through HTML.
 import type { EggCodeDrawing } from '../../domain/eggCode';
+import { markRects, type BandSymbol } from './bandSymbols';
 
 export interface RasterImage {
   width: number;
@@ -64,6 +65,7 @@ export function eggImage(drawing: EggCodeDrawing, ink: string, paper: string, he
   ctx.strokeStyle = ink;
   ctx.fillStyle = paper;
   for (const s of drawing.shapes) {
+    if (s.kind === 'dot') continue;
     ctx.beginPath();
     if (s.kind === 'ellipse') {
       ctx.ellipse(s.cx, s.cy, s.rx, s.ry, 0, 0, Math.PI * 2);
@@ -75,10 +77,19 @@ export function eggImage(drawing: EggCodeDrawing, ink: string, paper: string, he
     ctx.stroke();
   }
   ctx.fillStyle = ink;
-  ctx.font = `bold 26px ${FONT}`;
+  // Stage dots are shapes placed by the drawing (see eggCodeDrawing): never a "." glyph.
+  for (const s of drawing.shapes) {
+    if (s.kind !== 'dot') continue;
+    ctx.beginPath();
+    ctx.arc(s.cx, s.cy, s.r * 1.15, 0, Math.PI * 2);
+    ctx.fill();
+  }
   ctx.textAlign = 'center';
   ctx.textBaseline = 'middle';
-  for (const t of drawing.texts) ctx.fillText(t.text, t.x, t.y);
+  for (const t of drawing.texts) {
+    ctx.font = `bold ${t.size}px ${FONT}`;
+    ctx.fillText(t.text, t.x, t.y);
+  }
   return raster(ctx, width, height);
 }
 
@@ -101,4 +112,22 @@ export function shipImage(fill: string, halo: string, sizePx = 26): RasterImage 
   ctx.fillStyle = fill;
   ctx.fill();
   return raster(ctx, s, s);
+}
+
+/** A band's mark alone (no disc: the circle layer draws that), for a disc of `radiusPx`. */
+export function markImage(symbol: BandSymbol, radiusPx: number): RasterImage | null {
+  const r = IMAGE_PIXEL_RATIO;
+  const size = Math.ceil(2 * radiusPx * r);
+  const ctx = context(size, size);
+  if (!ctx) return null;
+  ctx.fillStyle = symbol.ink;
+  const c = size / 2;
+  const rad = radiusPx * r;
+  for (const q of markRects(symbol.mark)) {
+    ctx.beginPath();
+    if (q.round) ctx.arc(c, c, (q.w / 2) * rad, 0, Math.PI * 2);
+    else ctx.rect(c + q.x * rad, c + q.y * rad, q.w * rad, q.h * rad);
+    ctx.fill();
+  }
+  return raster(ctx, size, size);
 }

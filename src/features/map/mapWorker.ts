@@ -1,9 +1,11 @@
-// Web Worker: the map's heavy conversions off the main thread. The track (simplification per
-// zoom level, marginal ice zone stretches) and the fine Natural Earth land (fetched and fixed
+// Web Worker: the map's heavy conversions off the main thread. The observation points (written
+// as GeoJSON from columns), the track (simplification per zoom level, marginal ice zone
+// stretches) and the fine Natural Earth land (fetched and fixed
 // for the antimeridian here). It answers with UTF-8 GeoJSON in transferable buffers, which the
 // page hands to MapLibre as blob URLs, so MapLibre's own worker parses them and the main thread
 // never copies a million coordinates.
 import type { Topology } from 'topojson-specification';
+import { mapObservationFeatures } from './geojson';
 import { landFromTopology } from './land';
 import { mizFeatures, toleranceAtZoom, trackLevels, type PolarParts } from './trackLevels';
 import type { WorkerJob, WorkerResult } from './mapWorkerClient';
@@ -27,6 +29,11 @@ async function run(job: WorkerJob): Promise<void> {
     const miz = encode(mizFeatures(track, job.obsT, job.obsMiz, job.maxGapMs, toleranceAtZoom(12), polar));
     const c = encode(polar);
     reply({ id: job.id, kind: 'track', a: levels, b: miz, c }, [levels, miz, c]);
+    return;
+  }
+  if (job.kind === 'observations') {
+    const a = encode(mapObservationFeatures(job));
+    reply({ id: job.id, kind: 'observations', a }, [a]);
     return;
   }
   try {

@@ -3,6 +3,8 @@
 import type { FeatureCollection } from 'geojson';
 import type { Topology } from 'topojson-specification';
 import type { TrackPoint } from '../../domain/model';
+import { packTrackInSlices } from '../../gps/trackColumns';
+import { mapObservationFeatures, type ObservationColumns } from './geojson';
 import { landFromTopology } from './land';
 import MapDataWorker from './mapWorker.ts?worker&inline';
 import { mizFeatures, toleranceAtZoom, trackLevels, type PolarParts, type TrackArrays } from './trackLevels';
@@ -22,15 +24,27 @@ export interface LandJob {
   url: string;
 }
 
-export type WorkerJob = TrackJob | LandJob;
+export interface ObservationsJob extends ObservationColumns {
+  kind: 'observations';
+  id: number;
+}
+
+export type WorkerJob = TrackJob | LandJob | ObservationsJob;
 
 /** Two GeoJSON documents as UTF-8 (track levels and zone stretches, or land and coastlines). */
 export type WorkerResult =
   | { id: number; kind: 'track' | 'land'; a: ArrayBuffer; b: ArrayBuffer; /** Track only: the parts beyond the Mercator limit. */ c?: ArrayBuffer }
+  | { id: number; kind: 'observations'; a: ArrayBuffer }
   | { id: number; kind: 'error'; message: string };
 
 /** GeoJSON for a source: an object, or a URL MapLibre loads in its own worker. */
 export type SourceData = FeatureCollection | string;
+
+/** One GeoJSON document for a source, as PreparedPair. */
+export interface PreparedOne {
+  data: SourceData;
+  release: () => void;
+}
 
 export interface PreparedPair {
   a: SourceData;
@@ -41,39 +55,19 @@ export interface PreparedPair {
   polar?: PolarParts;
 }
 
-const SLICE = 50_000;
-
-function yieldToPage(): Promise<void> {
-  return new Promise((resolve) => setTimeout(resolve, 0));
-}
-
-/** The track in time order as typed arrays, built a slice at a time. */
-export async function packTrack(track: readonly TrackPoint[], signal?: AbortSignal): Promise<TrackArrays> {
-  const n = track.length;
-  const t = new Float64Array(n);
-  const lon = new Float64Array(n);
-  const lat = new Float64Array(n);
-  let sorted = true;
-  for (let start = 0; start < n; start += SLICE) {
-    const end = Math.min(n, start + SLICE);
-    for (let i = start; i < end; i++) {
-      const p = track[i] as TrackPoint;
-      t[i] = Date.parse(p.time);
-      lon[i] = p.lon;
-      lat[i] = p.lat;
-      if (i > 0 && (t[i] as number) < (t[i - 1] as number)) sorted = false;
-    }
-    if (end < n) {
-      await yieldToPage();
-      if (signal?.aborted) throw new DOMException('track preparation cancelled', 'AbortError');
-    }
-  }
-  if (sorted) return { t, lon, lat };
-  const order = Array.from({ length: n }, (_, i) => i).sort((a, b) => (t[a] as number) - (t[b] as number));
-  return { t: Float64Array.from(order, (i) => t[i] as number), lon: Float64Array.from(order, (i) => lon[i] as number), lat: Float64Array.from(order, (i) => lat[i] as number) };
+/** The track in time order as typed arrays, built a slice at a time (src/gps/trackColumns.ts). */
+export function packTrack(track: readonly TrackPoint[], signal?: AbortSignal): Promise<TrackArrays> {
+  return packTrackInSlices(track, signal);
 }
 
 const decoder = new TextDecoder();
+
+/** UTF-8 GeoJSON as a blob: URL for MapLibre (parsed in place where there are no blob URLs). */
+function sourceData(buf: ArrayBuffer): PreparedOne {
+  if (typeof URL.createObjectURL !== 'function') return { data: JSON.parse(decoder.decode(buf)) as FeatureCollection, release: () => undefined };
+  const url = URL.createObjectURL(new Blob([buf], { type: 'application/json' }));
+  return { data: url, release: () => URL.revokeObjectURL(url) };
+}
 
 /**
  * Runs jobs in one Web Worker; without Worker support (tests in Node) it computes in place.
@@ -101,28 +95,37 @@ export class MapWorker {
     }
   }
 
-  private run(job: WorkerJob, transfer: Transferable[]): Promise<PreparedPair> {
+  private post(job: WorkerJob, transfer: Transferable[]): Promise<WorkerResult> {
     const worker = this.worker as Promise<Worker>;
     return worker.then((w) => new Promise<WorkerResult>((resolve) => {
       this.pending.set(job.id, resolve);
       w.postMessage(job, transfer);
     })).then((r) => {
       if (r.kind === 'error') throw new Error(r.message);
+      return r;
+    });
+  }
+
+  private run(job: WorkerJob, transfer: Transferable[]): Promise<PreparedPair> {
+    return this.post(job, transfer).then((r) => {
+      if (r.kind !== 'track' && r.kind !== 'land') throw new Error(`map worker: a pair was expected, not ${r.kind}`);
       const polar = r.c ? (JSON.parse(decoder.decode(r.c)) as PolarParts) : undefined;
-      if (typeof URL.createObjectURL !== 'function') {
-        return { a: JSON.parse(decoder.decode(r.a)) as FeatureCollection, b: JSON.parse(decoder.decode(r.b)) as FeatureCollection, release: () => undefined, polar };
-      }
-      const a = URL.createObjectURL(new Blob([r.a], { type: 'application/json' }));
-      const b = URL.createObjectURL(new Blob([r.b], { type: 'application/json' }));
-      return {
-        a,
-        b,
-        polar,
-        release: () => {
-          URL.revokeObjectURL(a);
-          URL.revokeObjectURL(b);
-        },
-      };
+      const a = sourceData(r.a);
+      const b = sourceData(r.b);
+      return { a: a.data, b: b.data, polar, release: () => { a.release(); b.release(); } };
+    });
+  }
+
+  /**
+   * The observation points for MapLibre, written by the worker from columns (the typed arrays are
+   * handed over, not copied) and given to MapLibre as a URL its own worker reads.
+   */
+  observations(cols: ObservationColumns): Promise<PreparedOne> {
+    if (!this.worker) return Promise.resolve({ data: mapObservationFeatures(cols), release: () => undefined });
+    const job: ObservationsJob = { kind: 'observations', id: this.nextId++, ...cols };
+    return this.post(job, [cols.lon.buffer, cols.lat.buffer, cols.t.buffer, cols.band.buffer, cols.observer.buffer]).then((r) => {
+      if (r.kind !== 'observations') throw new Error(`map worker: observations were expected, not ${r.kind}`);
+      return sourceData(r.a);
     });
   }
 

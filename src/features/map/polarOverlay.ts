@@ -6,13 +6,15 @@
 import type { Map as MapLibreMap } from 'maplibre-gl';
 import type { Position } from 'geojson';
 import type { PolarParts } from './trackLevels';
-import type { Palette } from './style';
+import type { MapTheme, Palette } from './style';
+import { bandSymbol, drawBandSymbol } from './bandSymbols';
+import type { BandKey } from './concentrationBands';
 
 export interface PolarPoint {
   id: string;
   lon: number;
   lat: number;
-  colour: string;
+  band: BandKey;
   t: number;
   observerId: string;
 }
@@ -30,7 +32,7 @@ export class PolarOverlay {
   private ship: { lon: number; lat: number; heading: number } | null = null;
   private readonly draw = () => this.render();
 
-  constructor(private readonly map: MapLibreMap, private palette: Palette) {
+  constructor(private readonly map: MapLibreMap, private palette: Palette, private theme: MapTheme) {
     this.canvas = document.createElement('canvas');
     this.canvas.className = 'map-polar-overlay';
     this.canvas.setAttribute('aria-hidden', 'true');
@@ -65,8 +67,9 @@ export class PolarOverlay {
     this.map.triggerRepaint();
   }
 
-  setPalette(palette: Palette): void {
+  setPalette(palette: Palette, theme: MapTheme): void {
     this.palette = palette;
+    this.theme = theme;
     this.map.triggerRepaint();
   }
 
@@ -168,19 +171,21 @@ export class PolarOverlay {
       ctx.fill();
       ctx.restore();
     }
-    // Same sizes as the circle layer (style.ts): 4 px at zoom 0, 6 at 6, 8 at 10.
-    const base = zoom <= 6 ? 4 + (2 * Math.max(0, zoom)) / 6 : Math.min(8, 6 + ((zoom - 6) * 2) / 4);
+    // Same sizes as the circle layer (style.ts, the palette's radius at zoom 0, 6 and 10).
+    const [r0, r6, r10] = this.palette.radius;
+    const base = zoom <= 6 ? r0 + ((r6 - r0) * Math.max(0, zoom)) / 6 : Math.min(r10, r6 + ((zoom - 6) * (r10 - r6)) / 4);
     for (const p of this.points) {
       if (!this.visible(p) || !this.facing(p.lon, p.lat)) continue;
       const s = this.map.project([p.lon, p.lat]);
-      const selected = p.id === this.selected;
-      ctx.beginPath();
-      ctx.arc(s.x, s.y, selected ? base + 4 : base, 0, Math.PI * 2);
-      ctx.fillStyle = p.colour;
-      ctx.fill();
-      ctx.lineWidth = selected ? 3 : 1;
-      ctx.strokeStyle = selected ? this.palette.selected : this.palette.stroke;
-      ctx.stroke();
+      const symbol = bandSymbol(this.theme, p.band);
+      if (p.id === this.selected) {
+        ctx.beginPath();
+        ctx.arc(s.x, s.y, base + 4, 0, Math.PI * 2);
+        ctx.lineWidth = 3;
+        ctx.strokeStyle = this.palette.selected;
+        ctx.stroke();
+      }
+      drawBandSymbol(ctx, this.theme === 'red' ? symbol : { ...symbol, ring: this.palette.stroke }, s.x, s.y, base, this.palette.ocean, 1);
     }
   }
 

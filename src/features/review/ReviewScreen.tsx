@@ -3,8 +3,9 @@
 // src/domain/stats; this screen only lays them out.
 import { useId, useMemo, useState } from 'react';
 import type { Cruise, Observation, TrackPoint } from '../../domain/model';
-import { POLARIS_CAUTIONS, VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
-import { collectFindings, reviewCruise } from '../../domain/stats';
+import { VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
+import { REVIEW_CAUTIONS } from '../../domain/stats';
+import { effectiveTheme, useThemeStore } from '../../state/theme';
 import { AgreementPanel } from './AgreementPanel';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
@@ -12,6 +13,7 @@ import { HandoverTable } from './HandoverTable';
 import { ReviewCharts } from './ReviewCharts';
 import { SummaryCards } from './SummaryCards';
 import { TrackSketch } from './TrackSketch';
+import { useReviewFigures } from './reviewClient';
 import { useReviewCruise, useReviewObservations, useReviewTrack } from './reviewData';
 import './review.css';
 
@@ -38,13 +40,11 @@ function CruiseReviewLoader({ cruise }: { cruise: Cruise }) {
 export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; observations: Observation[]; track: TrackPoint[] }) {
   const id = useId();
   const [observerId, setObserverId] = useState('');
-  const review = useMemo(
-    () => reviewCruise({ cruise, observations, track, include: observerId ? (o) => o.observerId === observerId : undefined }),
-    [cruise, observations, track, observerId],
-  );
-  const findings = useMemo(() => collectFindings(observations, cruise), [observations, cruise]);
+  // Computed in the review worker, a save at a time; the previous figures stay until new ones arrive.
+  const { figures, updating, error } = useReviewFigures(cruise, observations, track, observerId);
   const byId = useMemo(() => new Map(observations.map((o) => [o.id, o])), [observations]);
   const observerName = cruise.observers.find((o) => o.id === observerId)?.name;
+  const theme = effectiveTheme(useThemeStore());
   return (
     <div className="review-body">
       <div className="review-heading">
@@ -63,6 +63,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
           <button type="button" className="button primary" onClick={() => window.print()}>
             Print the report
           </button>
+          {theme !== 'day' && <span className="muted small">The preview and the print keep this dark display; choose Day for black on white paper.</span>}
         </div>
         {observerName && (
           <p className="review-filter-note" role="status">
@@ -70,22 +71,27 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
           </p>
         )}
       </div>
-      <SummaryCards summary={review.summary} cruise={cruise} />
-      <TrackSketch observations={observations} track={track} />
-      <ReviewCharts series={review.series} />
-      <BandTable table={review.bands} />
-      <HandoverTable table={review.handover} observers={cruise.observers} highlight={observerId || null} />
-      <FindingsPanel findings={findings} cruise={cruise} observations={byId} />
-      <AgreementPanel cruise={cruise} observations={observations} />
+      {error && <p role="alert" className="review-error">The figures could not be computed: {error}</p>}
+      <p className="review-updating no-print muted" data-testid="review-updating" aria-live="polite">
+        {updating ? (figures ? 'Updating the figures…' : 'Computing the figures…') : ''}
+      </p>
+      {figures && (
+        <>
+          <SummaryCards summary={figures.review.summary} cruise={cruise} />
+          <TrackSketch observations={observations} track={track} />
+          <ReviewCharts series={figures.review.series} />
+          <BandTable table={figures.review.bands} />
+          <HandoverTable table={figures.review.handover} observers={cruise.observers} highlight={observerId || null} />
+          <FindingsPanel findings={figures.findings} cruise={cruise} observations={byId} />
+          <AgreementPanel cruise={cruise} observations={observations} />
+        </>
+      )}
       <section aria-labelledby="review-cautions-title" className="review-section review-cautions">
         <h3 id="review-cautions-title">Cautions</h3>
         <ul>
-          <li>The map and positions in this report are an overview of observed ice, not a navigation chart.</li>
-          {POLARIS_CAUTIONS.map((c) => (
+          {REVIEW_CAUTIONS.map((c) => (
             <li key={c}>{c}</li>
           ))}
-          <li>Thickness with ridges is an estimate from the sail height (keel and area ratios of Timco and Burden 1997).</li>
-          <li>Concentrations, stages and thicknesses are visual estimates from the bridge.</li>
         </ul>
       </section>
     </div>

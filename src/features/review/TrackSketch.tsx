@@ -1,10 +1,13 @@
 // A track overview for the printed report: the ship's track and the observations coloured by
-// total concentration (WMO/TD-No. 1215 colours, as on the map), drawn as SVG so it prints
+// total concentration (WMO/TD-No. 1215 colours by day; the map's symbols in each display), drawn as SVG so it prints
 // without WebGL. Plate carrée scaled by the cosine of the mid-latitude, longitudes unwrapped
 // across the antimeridian. An overview, not a navigation chart.
 import { useMemo } from 'react';
 import type { Observation, TrackPoint } from '../../domain/model';
-import { band, bandOfTenths, hexColour, type BandKey } from '../map/concentrationBands';
+import { effectiveTheme, useThemeStore } from '../../state/theme';
+import { BandSwatch } from '../map/BandSwatch';
+import { hasMarks } from '../map/bandSymbols';
+import { band, bandOfTenths, type BandKey } from '../map/concentrationBands';
 
 const W = 640;
 const H = 360;
@@ -49,17 +52,19 @@ export function TrackSketch({ observations, track }: { observations: readonly Ob
       const b = bandOfTenths(o.totalConcentration);
       bandsSeen.add(b);
       const p = dots[i] as Pt;
-      return { id: o.id, cx: x(p.lon), cy: y(p.lat), fill: hexColour(band(b).rgb) };
+      return { id: o.id, cx: x(p.lon), cy: y(p.lat), band: b };
     });
     const parallels: { lat: number; y: number }[] = [];
     for (let lat = Math.ceil(latMin); lat <= Math.floor(latMax); lat++) parallels.push({ lat, y: y(lat) });
     return { path, points, parallels, bands: [...bandsSeen].map((b) => band(b)) };
   }, [observations, track]);
+  const theme = effectiveTheme(useThemeStore());
   if (!drawn) return null;
+  const dot = hasMarks(theme) ? 12 : 8;
   return (
     <section aria-labelledby="review-track-title" className="review-section review-track">
       <h3 id="review-track-title">Track overview</h3>
-      <p className="muted small">Not a navigation chart. Observations coloured by total concentration (WMO ice chart colours).</p>
+      <p className="muted small">Not a navigation chart. Observations by total concentration ({theme === 'red' ? 'red display: brightness and marks as on the map' : theme === 'night' ? 'WMO ice chart colours, dimmed' : 'WMO ice chart colours'}).</p>
       <svg viewBox={`0 0 ${W} ${H}`} className="review-track-svg" role="img" aria-label={`Track with ${drawn.points.length} observations`} data-testid="track-sketch">
         {drawn.parallels.map((p) => (
           <g key={p.lat}>
@@ -69,13 +74,13 @@ export function TrackSketch({ observations, track }: { observations: readonly Ob
         ))}
         <path d={drawn.path} className="review-track-line" />
         {drawn.points.map((p) => (
-          <circle key={p.id} cx={p.cx} cy={p.cy} r={3.5} fill={p.fill} className="review-track-dot" />
+          <BandSwatch key={p.id} band={p.band} theme={theme} size={dot} centre={{ x: p.cx, y: p.cy }} />
         ))}
       </svg>
       <ul className="review-track-legend">
         {drawn.bands.map((b) => (
           <li key={b.key}>
-            <svg width="12" height="12" aria-hidden="true"><circle cx="6" cy="6" r="5" fill={hexColour(b.rgb)} className="review-track-dot" /></svg> {b.label}
+            <BandSwatch band={b.key} theme={theme} size={14} /> {b.label}
           </li>
         ))}
       </ul>

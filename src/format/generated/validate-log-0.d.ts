@@ -8,7 +8,10 @@ export interface SchemaError {
 }
 export interface CompiledValidator {
   (data: unknown): boolean;
+  /** The first errors found, at most the cap baked in by the generator (MAX_SCHEMA_ERRORS). */
   errors?: SchemaError[] | null;
+  /** How many further errors the last call found but did not keep. */
+  droppedErrors?: number;
 }
 declare const validate: CompiledValidator;
 export default validate;

@@ -2,6 +2,7 @@
 // positions, concentrations under short names, no units block, no SIGRID-3 codes, no history and
 // no photos. It is kept so such files can still be read: src/format/migrate.ts lifts them to the
 // current version. A shipped version's schema is never edited.
+import { V1_FLOE_SIZE_KEYS } from './schemaV1';
 import { FLOE_SIZE_KEYS, POSITION_SOURCES, STAGE_KEYS, VESSEL_ICE_CLASSES } from '../../domain/model';
 import { LIMITS } from '../limits';
 import { FORMAT_NAME } from '../types';
@@ -53,7 +54,7 @@ export const SCHEMA_V0: Schema = {
                 conc: int(0, 10, 'Partial concentration, tenths'),
                 stage: oneOf(STAGE_KEYS, 'Stage of development'),
                 thicknessCm: num(0, 3000, 'Thickness, centimetres'),
-                floeSize: oneOf(FLOE_SIZE_KEYS, 'Floe size'),
+                floeSize: oneOf(V1_FLOE_SIZE_KEYS, 'Floe size'),
               },
               ['conc', 'stage'],
             ),

@@ -5,34 +5,41 @@ import {
   FLOE_SIZE_KEYS,
   OPEN_WATER_KINDS,
   POSITION_SOURCES,
-  SNOW_KINDS,
   STAGE_KEYS,
   VESSEL_ICE_CLASSES,
 } from '../../domain/model';
+import { LEGACY_SNOW_KINDS } from '../../domain/legacyIceTypes';
 import { CONCENTRATION_CODE_LIST, FLOE_SIZE_CODE_LIST, STAGE_CODE_LIST } from '../codes';
 import { LIMITS } from '../limits';
 import { FORMAT_NAME, SCHEMA_V1_PATH, TRACK_COLUMNS, UNITS_V1 } from '../types';
 import { array, constant, id, int, isoUtc, nullable, num, object, oneOf, text, type Schema } from './helpers';
 
-const tenths = (description: string): Schema => int(0, 10, `${description}, in tenths (0-10)`);
-const stage = (description: string) => oneOf(STAGE_KEYS, `${description}: a stage of development (WMO-No. 259)`);
-const stageCode = (description: string) => oneOf(STAGE_CODE_LIST, `${description}: SIGRID-3 stage code`);
-const concentrationCode = (description: string) => oneOf(CONCENTRATION_CODE_LIST, `${description}: SIGRID-3 concentration code`);
+export const tenths = (description: string): Schema => int(0, 10, `${description}, in tenths (0-10)`);
+export const stage = (description: string) => oneOf(STAGE_KEYS, `${description}: a stage of development (WMO-No. 259)`);
+export const stageCode = (description: string) => oneOf(STAGE_CODE_LIST, `${description}: SIGRID-3 stage code`);
+export const concentrationCode = (description: string) => oneOf(CONCENTRATION_CODE_LIST, `${description}: SIGRID-3 concentration code`);
+
+// A published format version is never edited: version 1 keeps the code lists it shipped with.
+// The trace code 01 and the growlers/floebergs form (09) came with version 2.
+export const V1_FLOE_SIZE_KEYS = FLOE_SIZE_KEYS.filter((k) => k !== 'growlers-floebergs');
+const v1FloeSizeCodes = FLOE_SIZE_CODE_LIST.filter((c) => c !== '09');
+const v1ConcentrationCode = (description: string) =>
+  oneOf(CONCENTRATION_CODE_LIST.filter((c) => c !== '01'), `${description}: SIGRID-3 concentration code`);
 
 const category = object(
   'One ice type of the observation, a column of the egg code; thickest first.',
   {
     partialConcentration: tenths('Partial concentration of this ice type'),
-    partialConcentrationSigrid3: concentrationCode('The partial concentration'),
+    partialConcentrationSigrid3: v1ConcentrationCode('The partial concentration'),
     stage: stage('Stage of development'),
     stageSigrid3: stageCode('The stage'),
     thicknessCm: num(0, 3000, 'Typical level-ice thickness, centimetres'),
-    floeSize: oneOf(FLOE_SIZE_KEYS, 'Form of ice by floe size (WMO-No. 259)'),
-    floeSizeSigrid3: oneOf(FLOE_SIZE_CODE_LIST, 'The floe size: SIGRID-3 form code'),
+    floeSize: oneOf(V1_FLOE_SIZE_KEYS, 'Form of ice by floe size (WMO-No. 259)'),
+    floeSizeSigrid3: oneOf(v1FloeSizeCodes, 'The floe size: SIGRID-3 form code'),
     ridgedTenths: tenths('Share of this ice type that is ridged'),
     raftedTenths: tenths('Share of this ice type that is rafted'),
     sailHeightM: num(0, 30, 'Typical ridge sail height above the waterline, metres'),
-    snowKind: oneOf(SNOW_KINDS, 'Snow on this ice type'),
+    snowKind: oneOf(LEGACY_SNOW_KINDS, 'Snow on this ice type'),
     snowDepthCm: num(0, 500, 'Snow depth, centimetres'),
   },
   ['partialConcentration', 'partialConcentrationSigrid3', 'stage', 'stageSigrid3'],
@@ -69,7 +76,7 @@ const versionProperties: Record<string, Schema> = {
   position: nullable(position),
   observerId: id('Who observed: an id from observers'),
   totalConcentration: nullable(tenths('Total concentration')),
-  totalConcentrationSigrid3: concentrationCode('The total concentration (99 when not judged)'),
+  totalConcentrationSigrid3: v1ConcentrationCode('The total concentration (99 when not judged)'),
   categories: array(category, 3, 'Up to three ice types, thickest first (egg code a, b, c)'),
   traceStage: stage('Stage of a trace (< 1/10) of ice thicker than the first type (egg code So)'),
   traceStageSigrid3: stageCode('The trace stage'),

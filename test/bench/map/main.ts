@@ -90,6 +90,8 @@ async function run(): Promise<BenchResult> {
     };
     const obsFc = observationFeatures(observations);
     style.layers = style.layers.map((l) => (l.id.startsWith('track-') ? { ...l, filter: ['==', ['get', 'level'], 0], minzoom: 0, maxzoom: 24 } : l)) as typeof style.layers;
+    // Bare: every observation its own circle, no grouping at small zooms.
+    style.sources[SRC.observations] = { type: 'geojson', data: { type: 'FeatureCollection', features: [] }, promoteId: 'id' };
     map = new MapLibreMap({ container, style, fadeDuration: 0 });
     await new Promise<void>((r) => map.once('load', () => r()));
     (map.getSource(SRC.track) as GeoJSONSource).setData(trackFc);

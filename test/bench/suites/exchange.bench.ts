@@ -7,38 +7,18 @@
 // FLOE_BENCH_SCALE (e.g. 0.1) shrinks the data for a quick try; FLOE_BENCH_PART=export skips the
 // (slow, fake-indexeddb) import half.
 import 'fake-indexeddb/auto';
-import { closeFloeDb, getDb, openFloeDb, selectDatabase } from '../../../src/db';
+import { closeFloeDb, countTrackPoints, getDb, openFloeDb, selectDatabase } from '../../../src/db';
+import { chunksOf } from '../../../src/db/trackChunk';
 import { applyMergePlan, loadMergeTarget } from '../../../src/db/importPlan';
-import type { Observation, TrackPoint } from '../../../src/domain/model';
-import { demoBundle } from '../../../src/cli/commands/demo';
 import { exportLogJson } from '../../../src/format/encode';
 import { planMerge } from '../../../src/format/merge';
 import { readLogText } from '../../../src/format/read';
-import type { LogBundle } from '../../../src/format/types';
+import { bigCruise } from '../bigCruise';
 import { absoluteRow, median, ratioRow, type BenchRow, type BenchSuite } from '../bench-kit';
 
 const SCALE = Number(process.env.FLOE_BENCH_SCALE ?? '1');
 const OBSERVATIONS = Math.round(50_000 * SCALE);
 const TRACK_POINTS = Math.round(1_000_000 * SCALE);
-
-function bigCruise(): LogBundle {
-  const demo = demoBundle(1);
-  const hour = 3_600_000;
-  const t0 = Date.parse(demo.observations[0]?.time ?? '2026-03-09T00:00:00Z');
-  const observations: Observation[] = [];
-  for (let i = 0; i < OBSERVATIONS; i++) {
-    const o = demo.observations[i % demo.observations.length] as Observation;
-    const time = new Date(t0 + i * hour).toISOString().replace('.000Z', 'Z');
-    observations.push({ ...o, id: `bench-${i.toString(36).padStart(6, '0')}`, time, savedAt: time });
-  }
-  const track: TrackPoint[] = [];
-  const p0 = Date.parse(demo.track[0]?.time ?? '2026-03-09T00:00:00Z');
-  for (let i = 0; i < TRACK_POINTS; i++) {
-    const p = demo.track[i % demo.track.length] as TrackPoint;
-    track.push({ ...p, time: new Date(p0 + i * 20_000).toISOString().replace('.000Z', 'Z') });
-  }
-  return { cruise: demo.cruise, observations, history: [], conflicts: [], track, photos: [] };
-}
 
 let dbCounter = 0;
 async function freshDb() {
@@ -67,7 +47,7 @@ export const suite: BenchSuite = {
   name: `exchange (${OBSERVATIONS} observations, ${TRACK_POINTS} track points)`,
   async run() {
     const rows: BenchRow[] = [];
-    const bundle = bigCruise();
+    const bundle = bigCruise(OBSERVATIONS, TRACK_POINTS);
 
     // Export, interleaved A B A B so machine noise hits both alike.
     const exp: number[] = [];
@@ -100,16 +80,16 @@ export const suite: BenchSuite = {
       const plan = planMerge(await loadMergeTarget(r.bundle.cruise.id), r.bundle);
       await applyMergePlan(plan, { source: 'bench.json' });
       imp.push(performance.now() - t);
-      if ((await db.trackPoints.count()) !== TRACK_POINTS) throw new Error('import lost track points');
+      if ((await countTrackPoints(bundle.cruise.id)) !== TRACK_POINTS) throw new Error('import lost track points');
       await dropDb();
 
       db = await freshDb();
       t = performance.now();
-      await db.transaction('rw', [db.cruises, db.observations, db.trackPoints], async () => {
+      await db.transaction('rw', [db.cruises, db.observations, db.trackChunks], async () => {
         await db.cruises.put(bundle.cruise);
         await db.observations.bulkPut(bundle.observations);
-        // The same batches as the import writes, so both sides do the same store work.
-        for (let i = 0; i < bundle.track.length; i += 50_000) await db.trackPoints.bulkPut(bundle.track.slice(i, i + 50_000));
+        // The same rows as the import writes: the track as hour chunks.
+        await db.trackChunks.bulkPut(chunksOf(bundle.track));
       });
       put.push(performance.now() - t);
       await dropDb();

@@ -34,6 +34,8 @@ export interface LaunchOptions {
   offline?: boolean;
   /** Keep service workers out of this run (to load the app from the network as a baseline). */
   blockServiceWorkers?: boolean;
+  /** Emulate a touch screen (touch events, `page.touchscreen`). */
+  hasTouch?: boolean;
 }
 
 export interface Browser {
@@ -52,6 +54,7 @@ export async function launchChromium(opts: LaunchOptions = {}): Promise<Browser>
     acceptDownloads: true,
     offline: opts.offline ?? false,
     serviceWorkers: opts.blockServiceWorkers ? 'block' : 'allow',
+    hasTouch: opts.hasTouch ?? false,
   });
   return {
     context,
@@ -84,9 +87,10 @@ export interface AppSession {
 export const DIST_DIR = resolve(import.meta.dirname, '../../../dist');
 
 /** Serve the built app, start a fresh Chromium, and open the app in one page. */
-export async function openApp(opts: LaunchOptions & { path?: string } = {}): Promise<AppSession> {
+export async function openApp(opts: LaunchOptions & { path?: string; initScript?: string } = {}): Promise<AppSession> {
   const server = await serveDirectory(DIST_DIR);
   const browser = await launchChromium(opts);
+  if (opts.initScript) await browser.context.addInitScript(opts.initScript);
   const page = browser.context.pages()[0] ?? (await browser.context.newPage());
   const consoleErrors = collectConsoleErrors(page);
   await page.goto(server.url + (opts.path ?? ''));

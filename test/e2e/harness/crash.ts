@@ -43,9 +43,13 @@ export async function killBrowser(k: Killable): Promise<void> {
   await k.browser.context.close().catch(() => undefined);
 }
 
-/** A browser on a kept profile with one page opened at `url`, and the pids to kill it by. */
-export async function launchKillable(userDataDir: string, url: string): Promise<Killable & { page: Page }> {
+/**
+ * A browser on a kept profile with one page opened at `url`, and the pids to kill it by.
+ * `initScript` runs in every page before the app's own scripts (see txProbe.ts).
+ */
+export async function launchKillable(userDataDir: string, url: string, initScript?: string): Promise<Killable & { page: Page }> {
   const browser = await launchChromium({ userDataDir });
+  if (initScript) await browser.context.addInitScript(initScript);
   const page = browser.context.pages()[0] ?? (await browser.context.newPage());
   await page.goto(url);
   return { browser, page, pids: await browserPids(browser) };

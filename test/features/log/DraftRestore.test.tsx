@@ -1,6 +1,6 @@
 import { screen, waitFor } from '@testing-library/react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { loadDraft } from '../../../src/db';
+import { loadDraft, saveDraft } from '../../../src/db';
 import type { StoredDraft } from '../../../src/features/log/useDraftAutosave';
 import { emptyDraft, useObservationForm } from '../../../src/state/observationForm';
 import { closeDb, field, freshCruise, renderLog } from './helpers';
@@ -35,6 +35,19 @@ describe('the draft in progress', () => {
     // Its time was fixed at the first change, not reset to the reload's clock.
     expect(field('Time, UTC')).toHaveValue(useObservationForm.getState().draft.time);
     expect(useObservationForm.getState().draft.time).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+  });
+
+  it('brings back a draft kept without the snow fields of today\'s ice-type rows, blank where missing', async () => {
+    const cruise = await freshCruise();
+    const draft = emptyDraft('obs-ak');
+    const { snowCover: _c, snowWetness: _w, snowCrust: _k, snowDrifts: _d, ...older } = { ...(draft.categories[0] as (typeof draft.categories)[number]), partial: '4', stage: 'grey' as const };
+    await saveDraft(cruise.id, 'observation', { draft: { ...draft, total: '4', categories: [older] }, editing: null });
+    await renderLog();
+    expect(await screen.findByTestId('draft-restored')).toBeInTheDocument();
+    expect(field('Stage Sa')).toHaveValue('Grey ice');
+    expect(field('Snow cover (a)')).toHaveValue('');
+    expect(field('Crust (a)')).not.toBeChecked();
+    expect(useObservationForm.getState().draft.categories[0]).toMatchObject({ snowCover: '', snowWetness: '', snowCrust: false, snowDrifts: false });
   });
 
   it('is cleared once the observation is saved', async () => {

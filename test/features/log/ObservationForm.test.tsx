@@ -24,10 +24,12 @@ async function seedPrevious(cruise: Cruise, time = '2026-03-10T06:00:00Z'): Prom
     id: 'prev-1', cruiseId: cruise.id, time,
     position: { lat: 81.2, lon: 31.1, source: 'manual' }, observerId: 'obs-ak', totalConcentration: 9,
     categories: [
-      { partialConcentration: 5, stage: 'thick-first-year', thicknessCm: 140, floeSize: 'big-floe', ridgedTenths: 3, snowKind: 'wind-packed', snowDepthCm: 20 },
-      { partialConcentration: 3, stage: 'medium-first-year', thicknessCm: 90, floeSize: 'medium-floe' },
-      { partialConcentration: 1, stage: 'grey-white', thicknessCm: 20, floeSize: 'small-floe' },
+      { partialConcentration: 5, stage: 'thick-first-year', floeSize: 'big-floe', thicknessCm: 140 },
+      { partialConcentration: 3, stage: 'medium-first-year', floeSize: 'medium-floe', thicknessCm: 90 },
+      { partialConcentration: 1, stage: 'grey-white', floeSize: 'small-floe', thicknessCm: 20 },
     ],
+    deformation: { a: { ridgedTenths: 3 } },
+    snow: { a: { cover: 'complete', wetness: 'dry', drifts: true, depthCm: 20 } },
     weather: { airTempC: -18, windSpeedKn: 12 },
     notes: 'seed', photoIds: [],
   });
@@ -48,9 +50,12 @@ describe('the observation form by keyboard', () => {
     expect(field('Stage Sa')).toHaveFocus();
     await user.keyboard('thick{Tab}');
     expect(field('Stage Sa')).toHaveValue('Thick first-year ice');
-    expect(field('Thickness (a), cm')).toHaveFocus();
-    await user.keyboard('150{Tab}big{Enter}');
+    // The egg code's order (WMO-No. 259): concentration, stage, form, then thickness.
+    expect(field('Floe size Fa')).toHaveFocus();
+    await user.keyboard('big{Tab}');
     expect(field('Floe size Fa')).toHaveValue('Big floe');
+    expect(field('Thickness (a), cm')).toHaveFocus();
+    await user.keyboard('150');
     // Enter with the list closed saves.
     await user.keyboard('{Enter}');
     await saved(/Saved: the .* UTC observation, revision 1\./);
@@ -95,9 +100,14 @@ describe('the observation form by keyboard', () => {
     await user.click(field('Total concentration Ct, tenths'));
     await user.keyboard('{PageDown}');
     expect(field('Concentration Ca, tenths')).toHaveFocus();
+    // Deformation and snow are sections of their own after the ice types.
+    await user.keyboard('{PageDown}');
+    expect(field('Ridged (a), tenths')).toHaveFocus();
+    await user.keyboard('{PageDown}');
+    expect(field('Snow cover (a)')).toHaveFocus();
     await user.keyboard('{PageDown}');
     expect(field('Trace of thicker ice So')).toHaveFocus();
-    await user.keyboard('{PageUp}{PageUp}');
+    await user.keyboard('{PageUp}{PageUp}{PageUp}{PageUp}');
     expect(field('Total concentration Ct, tenths')).toHaveFocus();
   });
 
@@ -160,7 +170,7 @@ describe('findings beside the fields', () => {
     await user.paste('80.5 20.25');
     await user.click(field('Total concentration Ct, tenths'));
     // Grey ice is 10-15 cm (WMO-No. 259); 40 cm is outside its range: a warning, not an error.
-    await user.keyboard('66grey{Tab}40');
+    await user.keyboard('66grey{Tab}{Tab}40');
     const summary = screen.getByRole('region', { name: 'Checks' });
     const note = await within(summary).findByRole('textbox', { name: /Note on the warning: .*/ });
     await user.click(note);
@@ -221,6 +231,90 @@ describe('thickest first', () => {
   });
 });
 
+describe('deformation and snow, groups of their own', () => {
+  it('saves a row per ice type into the deformation and snow groups, keyed by the ice type', async () => {
+    const cruise = await freshCruise();
+    const { user } = await renderLog();
+    await user.click(field('Position'));
+    await user.paste('80.5 20.25');
+    await user.click(field('Total concentration Ct, tenths'));
+    await user.keyboard('9');
+    await user.keyboard('{Alt>}a{/Alt}');
+    await user.click(field('Concentration Ca, tenths'));
+    await user.keyboard('6thick{Enter}');
+    await user.click(field('Concentration Cb, tenths'));
+    await user.keyboard('3grey w{Enter}');
+    // Deformation row of ice type a: 2/10 ridged, "0" rafted, 1.5 m sails.
+    await user.click(field('Ridged (a), tenths'));
+    await user.keyboard('20');
+    expect(field('Sail height (a), m')).toHaveFocus();
+    await user.keyboard('1.5');
+    // Snow of ice type a: complete, wetness by its code "V" (very wet, Fierz et al. 2009), a crust, 25 cm.
+    await user.click(field('Snow cover (a)'));
+    await user.keyboard('snow-c{Tab}V{Tab}');
+    expect(field('Crust (a)')).toHaveFocus();
+    await user.keyboard(' ');
+    await user.click(field('Snow depth (a), cm'));
+    await user.keyboard('25');
+    // Snow of ice type b: partial, dry.
+    await user.click(field('Snow cover (b)'));
+    await user.keyboard('partly{Tab}dry{Tab}');
+    await user.click(screen.getByRole('button', { name: /Save the observation/ }));
+    await saved();
+    const [o] = await stored(cruise);
+    expect(o?.categories).toEqual([
+      { partialConcentration: 6, stage: 'thick-first-year' },
+      { partialConcentration: 3, stage: 'grey-white' },
+    ]);
+    expect(o?.deformation).toEqual({ a: { ridgedTenths: 2, raftedTenths: 0, sailHeightM: 1.5 } });
+    expect(o?.snow).toEqual({ a: { cover: 'complete', wetness: 'very-wet', crust: true, depthCm: 25 }, b: { cover: 'partial', wetness: 'dry' } });
+    // Two ice types and both groups typed key by key: longer than the file's 30 s on a loaded machine.
+  }, 90_000);
+
+  it('names a bad snow depth beside its field and puts the cursor there on save', async () => {
+    const cruise = await freshCruise();
+    const { user } = await renderLog();
+    await user.click(field('Total concentration Ct, tenths'));
+    await user.keyboard('5');
+    await user.click(field('Stage Sa'));
+    await user.keyboard('grey{Tab}');
+    await user.click(field('Snow depth (a), cm'));
+    await user.keyboard('-3');
+    const input = field('Snow depth (a), cm');
+    expect(input).toHaveAttribute('aria-invalid', 'true');
+    expect(document.getElementById(input.getAttribute('aria-describedby') ?? '')).toHaveTextContent('Ice type a snow depth -3 cm is not a depth');
+    await user.click(screen.getByRole('button', { name: /Save the observation/ }));
+    await screen.findByText(/Not saved/);
+    expect(field('Snow depth (a), cm')).toHaveFocus();
+    expect(await stored(cruise)).toHaveLength(0);
+  });
+
+  it('moves the deformation and snow rows with their ice type when the types are put thickest first', async () => {
+    const cruise = await freshCruise();
+    const { user } = await renderLog();
+    await user.click(field('Position'));
+    await user.paste('80.5 20.25');
+    await user.click(field('Total concentration Ct, tenths'));
+    await user.keyboard('9');
+    await user.keyboard('{Alt>}a{/Alt}');
+    await user.click(field('Concentration Ca, tenths'));
+    await user.keyboard('3grey{Enter}');
+    await user.click(field('Concentration Cb, tenths'));
+    await user.keyboard('6thick{Enter}');
+    // Ridges typed on the thick first-year ice while it is still row b.
+    await user.click(field('Ridged (b), tenths'));
+    await user.keyboard('4');
+    expect(await screen.findByText(/Ice types put thickest first/)).toBeInTheDocument();
+    expect(field('Ridged (a), tenths')).toHaveValue('4');
+    expect(field('Ridged (b), tenths')).toHaveValue('');
+    await user.click(screen.getByRole('button', { name: /Save the observation/ }));
+    await saved();
+    const [o] = await stored(cruise);
+    expect(o?.categories.map((c) => c.stage)).toEqual(['thick-first-year', 'grey']);
+    expect(o?.deformation).toEqual({ a: { ridgedTenths: 4 } });
+  });
+});
+
 describe('start from the previous observation', () => {
   it('carries the ice and weather over with Alt+P, with a fresh time, observer on watch and no notes', async () => {
     const cruise = await freshCruise();
@@ -232,6 +326,11 @@ describe('start from the previous observation', () => {
     expect(field('Stage Sa')).toHaveValue('Thick first-year ice');
     expect(field('Stage Sc')).toHaveValue('Grey-white ice');
     expect(field('Snow depth (a), cm')).toHaveValue('20');
+    expect(field('Snow cover (a)')).toHaveValue('Snow-covered throughout');
+    expect(field('Wetness (a)')).toHaveValue('Dry');
+    expect(field('Drifts (a)')).toBeChecked();
+    expect(field('Crust (a)')).not.toBeChecked();
+    expect(field('Ridged (a), tenths')).toHaveValue('3');
     expect(field('Air, °C')).toHaveValue('-18');
     expect(field('Notes')).toHaveValue('');
     expect(field('Time, UTC')).toHaveValue('');

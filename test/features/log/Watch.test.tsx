@@ -35,7 +35,7 @@ describe('the watch panel', () => {
     const panel = screen.getByTestId('watch-panel');
     expect(panel).toHaveAttribute('data-state', 'overdue');
     expect(panel).toHaveTextContent('Observation overdue 12:00 UTC');
-    expect(screen.getByTestId('missed-list')).toHaveTextContent('10:00–11:00 UTC (2 observations) on 2026-03-10');
+    expect(screen.getByTestId('missed-list')).toHaveTextContent('10:00–11:00 UTC on 2026-03-10 (2 observations)');
     await user.selectOptions(screen.getByLabelText('On watch'), 'obs-jb');
     expect(useWatchStore.getState().observerOnWatch[cruise.id]).toBe('obs-jb');
     expect(screen.getByLabelText('On watch')).toHaveValue('obs-jb');

@@ -70,7 +70,7 @@ describe('observation features', () => {
         obs('c', '2026-03-09T03:00:00Z', 9, 81, 0, { position: null }),
         obs('d', '2026-03-09T04:00:00Z', 8),
       ],
-      { observers: [{ id: 'o1', name: 'A. Example', initials: 'AE' }], eggKey: (o) => `egg:${o.id}` },
+      { observers: [{ id: 'o1', name: 'A. Example', initials: 'AE' }] },
     );
     expect(fc.features.map((f) => f.properties.id)).toEqual(['a', 'd']);
     const a = fc.features[0];

@@ -3,7 +3,8 @@
 import { describe, expect, it } from 'vitest';
 import { validateStyleMin } from '@maplibre/maplibre-gl-style-spec';
 import type { FeatureCollection } from 'geojson';
-import { buildStyle, eggFilter, observationLayerFilter, EGG_MIN_ZOOM, FINE_LAND_ZOOM, LAYER, observationFilter, PALETTES, SRC } from '../../../src/features/map/style';
+import { buildStyle, eggFilter, observationLayerFilter, CLUSTER_MAX_ZOOM, EGG_MIN_ZOOM, FINE_LAND_ZOOM, LAYER, observationFilter, PALETTES, SRC } from '../../../src/features/map/style';
+import { BAND_RANK } from '../../../src/features/map/geojson';
 import { graticuleFilter, graticuleLabels, graticuleLines, graticuleStep, graticuleSteps, formatLat, formatLon, GRATICULE_LEVELS, MAX_LABELS, scaleZoom } from '../../../src/features/map/graticule';
 
 const empty: FeatureCollection = { type: 'FeatureCollection', features: [] };
@@ -39,10 +40,25 @@ describe('offline style', () => {
   it('keys observations by id for feature state, colours them by band and draws egg codes from a zoom', () => {
     expect(style.sources[SRC.observations]).toMatchObject({ type: 'geojson', promoteId: 'id' });
     const obs = style.layers.find((l) => l.id === LAYER.observations);
-    expect(obs).toMatchObject({ type: 'circle', paint: { 'circle-color': ['get', 'colour'] } });
+    // By day the disc colours are the WMO/TD-No. 1215 total-concentration colours, by band.
+    const colour = (obs?.paint as Record<string, unknown>)['circle-color'] as unknown[];
+    expect(colour.slice(0, 2)).toEqual(['match', ['get', 'band']]);
+    const pairs = new Map<unknown, unknown>();
+    for (let i = 2; i + 1 < colour.length; i += 2) pairs.set(colour[i], colour[i + 1]);
+    expect(pairs.get('c4-6')).toBe('#ffff00'); // WMO/TD-No. 1215: 4-6/10 yellow 255,255,0
+    expect(pairs.get('c7-8')).toBe('#ff7d07'); // WMO/TD-No. 1215: 7-8/10 orange 255,125,7
+    expect(pairs.get('ice-free')).toBe('#0064ff'); // WMO/TD-No. 1215: ice free 0,100,255
     expect(JSON.stringify(obs)).toContain('feature-state');
     expect(style.layers.find((l) => l.id === LAYER.egg)).toMatchObject({ type: 'symbol', minzoom: EGG_MIN_ZOOM, layout: { 'icon-image': ['get', 'egg'] } });
+    // The egg codes have a source of their own, fed only from their zoom on.
+    expect(style.layers.find((l) => l.id === LAYER.egg)).toMatchObject({ source: SRC.eggs });
+    // Small zooms group close observations; a group takes the colour of its highest band
+    // (WMO/TD-No. 1215 colours: 9-10/10 red, 255,0,0).
+    expect(style.sources[SRC.observations]).toMatchObject({ cluster: true, clusterMaxZoom: CLUSTER_MAX_ZOOM, clusterProperties: { rank: ['max', ['get', 'rank']] } });
+    const groups = style.layers.find((l) => l.id === LAYER.clusters);
+    expect(JSON.stringify(groups)).toContain(`${BAND_RANK.indexOf('c9-10')},"#ff0000"`);
     const order = style.layers.map((l) => l.id);
+    expect(order.indexOf(LAYER.clusters)).toBeLessThan(order.indexOf(LAYER.observations));
     expect(order.indexOf(LAYER.miz)).toBeLessThan(order.indexOf(LAYER.observations));
     expect(order.indexOf('land-fine')).toBeLessThan(order.indexOf(LAYER.observations));
   });
@@ -58,8 +74,10 @@ describe('observation filters', () => {
     // Observations beyond the Mercator limit are left to the polar overlay.
     const notPolar = ['!=', ['get', 'polar'], true];
     expect(eggFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(['all', ['!=', ['get', 'egg'], ''], notPolar]);
-    expect(observationLayerFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(notPolar);
-    expect(observationLayerFilter({ fromMs: 1, toMs: null, observerIds: [] })).toEqual(['all', notPolar, ['>=', ['get', 't'], 1]]);
+    // Groups of observations (point_count) have their own layer.
+    const single = ['!', ['has', 'point_count']];
+    expect(observationLayerFilter({ fromMs: null, toMs: null, observerIds: [] })).toEqual(['all', single, notPolar]);
+    expect(observationLayerFilter({ fromMs: 1, toMs: null, observerIds: [] })).toEqual(['all', single, notPolar, ['>=', ['get', 't'], 1]]);
   });
 });
 
