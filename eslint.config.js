@@ -34,20 +34,27 @@ export default tseslint.config(
     files: ['src/domain/**'],
     languageOptions: { globals: { ...globals.es2022 } },
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync', 'iceinfo') }],
       'no-restricted-globals': ['error', 'window', 'document', 'navigator', 'localStorage', 'indexedDB'],
     },
   },
   {
     files: ['src/format/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli', 'sync') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'cli', 'sync', 'iceinfo') }],
     },
   },
   {
     files: ['src/db/**'],
     rules: {
-      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli', 'sync') }],
+      'no-restricted-imports': ['error', { paths: uiLibraries.filter((p) => p.name !== 'dexie' && p.name !== 'dexie-react-hooks'), patterns: upperLayers('app', 'features', 'state', 'gps', 'cli', 'sync', 'iceinfo') }],
+    },
+  },
+  {
+    // Ice chart and grid readers: over domain/ only (DESIGN.md); the app and the CLI call them.
+    files: ['src/iceinfo/**'],
+    rules: {
+      'no-restricted-imports': ['error', { paths: uiLibraries, patterns: upperLayers('app', 'features', 'state', 'db', 'gps', 'format', 'cli', 'sync') }],
     },
   },
   {

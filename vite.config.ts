@@ -42,7 +42,7 @@ export default defineConfig({
         test: {
           name: 'node',
           environment: 'node',
-          include: ['test/domain/**/*.test.ts', 'test/format/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/gps/**/*.test.ts'],
+          include: ['test/domain/**/*.test.ts', 'test/format/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/gps/**/*.test.ts', 'test/iceinfo/**/*.test.ts'],
         },
       },
       {

@@ -14,6 +14,7 @@ import { concentrationCode } from '../src/format/codes';
 import { writeCsv } from '../src/format/csv';
 import { exportLogJson } from '../src/format/encode';
 import { FLAT_COLUMNS } from '../src/format/flat';
+import { ICEINFO_COLUMNS } from '../src/format/iceinfoColumns';
 import { writeGeoJson } from '../src/format/geojson';
 import { LIMITS, MAX_LISTED_PROBLEMS, MAX_SCHEMA_ERRORS } from '../src/format/limits';
 import { writeNdjson } from '../src/format/ndjson';
@@ -283,6 +284,24 @@ function formatDoc(): string {
     '- **NDJSON**: the CSV columns as one JSON object per line.',
     '- **Zip archive**: `floe-ledger-log.json` (this format), `README.txt`, and the images under `photos/`',
     '  as named by each photo\'s `archivePath`.',
+    '',
+    '### Ice chart and satellite grid values (derived, flat exports only)',
+    '',
+    'When an export is made with ice information (the app with charts or grids stored and switched on;',
+    'the CLI `convert` with `--chart` / `--grid`), the CSV, NDJSON and GeoJSON properties get one more block',
+    'of columns **after** all the columns above:',
+    '',
+    `  ${ICEINFO_COLUMNS.map((c) => `\`${c}\``).join(', ')}.`,
+    '',
+    'These are **derived values**, not observations: the SIGRID-3 polygon (WMO/TD-No. 1214) of the chart',
+    'nearest in time to the observation (within the user\'s limit, 72 h by default) and the grid value at its',
+    'position (grid nearest in time, 36 h by default). `chart_hours_apart` and `grid_hours_apart` are',
+    'observation time minus product time. `chart_total_concentration_tenths` is the middle of the CT range',
+    '(`46` gives 4 to 6, compared as 5; `91` 9 to 10, 9.5). `grid_concentration_nearest_percent` is the cell',
+    'the position falls in; `grid_concentration_bilinear_percent` interpolates between the four nearest cell',
+    'centres, leaving out flagged cells and renormalising the weights. `grid_flag` names why there is no',
+    'value: `land`, `coast`, `missing`, `poleHole`, `unknownFlag` or `outside`. Empty cells mean no product',
+    'within the time limit. The JSON log never carries these values: its schema is unchanged.',
     '',
     '## Examples',
     '',

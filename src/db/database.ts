@@ -1,7 +1,7 @@
 // The typed Dexie database. Only this folder (src/db) touches IndexedDB.
 import { Dexie, type EntityTable, type Table } from 'dexie';
 import type { Cruise, Observation } from '../domain/model';
-import type { ConflictRecord, DraftRecord, MetaRow, ObservationRevision, PhotoRecord, SettingRow, SyncMark, SyncStateRow } from './rows';
+import type { ConflictRecord, DraftRecord, IceChartRow, IceGridRow, MetaRow, ObservationRevision, PhotoRecord, SettingRow, SyncMark, SyncStateRow } from './rows';
 import { SCHEMA_VERSIONS, type SchemaVersion } from './schema';
 import type { TrackChunkRow } from './trackChunk';
 
@@ -26,6 +26,8 @@ export class FloeDatabase extends Dexie {
   settings!: Table<SettingRow, string>;
   meta!: Table<MetaRow, string>;
   conflicts!: EntityTable<ConflictRecord, 'id'>;
+  iceCharts!: EntityTable<IceChartRow, 'id'>;
+  iceGrids!: EntityTable<IceGridRow, 'id'>;
   syncMarks!: Table<SyncMark, [string, string]>;
   syncState!: EntityTable<SyncStateRow, 'key'>;
 

@@ -1,5 +1,6 @@
 // The shapes stored in each table, beside the model types they hold. Model records (Cruise,
 // Observation, TrackPoint) are stored exactly as src/domain/model.ts defines them.
+import type { ConcentrationGrid, IceChart } from '../domain/collocation/chartModel';
 import type { Cruise, IsoUtc, Observation } from '../domain/model';
 
 /** An earlier version of an observation, kept when an edit, delete or restore replaces it. */
@@ -71,6 +72,8 @@ export interface SettingValues {
   /** When the last automatic backup was written, and the last export downloaded. */
   lastBackupAt: IsoUtc | null;
   lastExportAt: IsoUtc | null;
+  /** Collocation with ice charts and grids: time limits (hours) and the grid sampling method. */
+  iceInfoCollocation: { chartMaxHours: number; gridMaxHours: number; gridMethod: 'nearest' | 'bilinear' };
   /** The ship server this laptop syncs with (src/sync); the password is never kept. */
   syncServer: SyncServerSetting | null;
 }
@@ -142,3 +145,26 @@ export type ObservationInput = Omit<Observation, 'revision' | 'savedAt' | 'saved
 
 /** What createCruise takes: the cruise minus the fields the store sets. */
 export type CruiseInput = Omit<Cruise, 'id' | 'createdAt' | 'updatedAt'> & { id?: string };
+
+/** An imported ice chart, as read (src/iceinfo), with whether the map shows it. */
+export interface IceChartRow extends IceChart {
+  visible: boolean;
+}
+
+/** An imported concentration grid, as read (src/iceinfo), with whether the map shows it. */
+export interface IceGridRow extends ConcentrationGrid {
+  visible: boolean;
+}
+
+/** What the lists show without loading polygons or cells. */
+export interface IceInfoSummary {
+  kind: 'chart' | 'grid';
+  id: string;
+  sourceName: string;
+  time: IsoUtc;
+  fileName: string;
+  importedAt: IsoUtc;
+  visible: boolean;
+  /** Polygons of a chart, cells of a grid. */
+  size: number;
+}

@@ -88,6 +88,24 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
     upgrade: (tx) => convertTrackPointsToChunks(tx),
   },
   {
+    version: 5,
+    note: 'ice information: imported ice charts (SIGRID-3) and satellite concentration grids, each with its time',
+    stores: {
+      cruises: 'id, name',
+      observations: 'id, [cruiseId+time], observerId, cruiseId',
+      revisions: '[observationId+revision], observationId',
+      trackChunks: '[cruiseId+hour], [cruiseId+hour+count]',
+      photos: 'id, observationId, cruiseId',
+      drafts: '[cruiseId+form], cruiseId',
+      settings: 'key',
+      meta: 'key',
+      conflicts: 'id, observationId, cruiseId',
+      // Charts and grids are area products, not tied to one cruise; listed by their valid time.
+      iceCharts: 'id, chartTime',
+      iceGrids: 'id, gridTime',
+    },
+  },
+  {
     version: 6,
     note: 'syncMarks and syncState: which documents a ship server holds, and the pull checkpoint and refusals per server database (src/sync)',
     stores: {
@@ -103,6 +121,8 @@ export const SCHEMA_VERSIONS: readonly SchemaVersion[] = [
       // One row per document the server is known to hold (sent, or pulled from it).
       syncMarks: '[server+docId], [server+cruiseId]',
       syncState: 'key',
+      iceCharts: 'id, chartTime',
+      iceGrids: 'id, gridTime',
     },
   },
 ];

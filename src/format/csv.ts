@@ -6,7 +6,7 @@
 // as the ASCII ones, so those count too. Numbers are never altered, so negative temperatures and
 // western longitudes stay numbers.
 import type { Cell } from './flat';
-import { FLAT_COLUMNS, exportedObservations, flatContext, flatRow, type FlatOptions } from './flat';
+import { exportedObservations, flatColumns, flatContext, flatRow, type FlatOptions } from './flat';
 import type { LogBundle } from './types';
 
 const NEEDS_QUOTES = /[",\r\n]/;
@@ -25,8 +25,8 @@ export function csvLine(cells: readonly Cell[]): string {
 }
 
 export function writeCsv(bundle: LogBundle, opts: FlatOptions = {}): string[] {
-  const ctx = flatContext(bundle.cruise);
-  const parts = [csvLine(FLAT_COLUMNS)];
+  const ctx = flatContext(bundle.cruise, opts.collocation);
+  const parts = [csvLine(flatColumns(ctx))];
   for (const o of exportedObservations(bundle.observations, opts)) parts.push(csvLine(flatRow(o, ctx)));
   return parts;
 }

@@ -7,6 +7,8 @@
 import { deformationOf, snowOf } from '../domain/iceTypes';
 import { ICE_TYPE_LETTERS, type Cruise, type Deformation, type IceCategory, type Observation, type SnowCover } from '../domain/model';
 import { concentrationCode, floeSizeCode, stageCode, stageTermLabel, totalConcentrationCode, totalConcentrationTermLabel } from './codes';
+import type { Collocation } from '../domain/collocation/collocate';
+import { ICEINFO_COLUMNS, iceinfoCells } from './iceinfoColumns';
 
 export type Cell = string | number | boolean | null;
 
@@ -96,10 +98,17 @@ function snowCells(s: SnowCover | undefined): Cell[] {
 
 export interface FlatContext {
   initials: Map<string, string>;
+  /** Chart and grid values per observation id; when given, ICEINFO_COLUMNS follow FLAT_COLUMNS. */
+  collocation?: ReadonlyMap<string, Collocation>;
 }
 
-export function flatContext(cruise: Cruise): FlatContext {
-  return { initials: new Map(cruise.observers.map((o) => [o.id, o.initials])) };
+export function flatContext(cruise: Cruise, collocation?: ReadonlyMap<string, Collocation>): FlatContext {
+  return { initials: new Map(cruise.observers.map((o) => [o.id, o.initials])), ...(collocation ? { collocation } : {}) };
+}
+
+/** The columns of a flat record: FLAT_COLUMNS, then the derived ice information block if any. */
+export function flatColumns(ctx: FlatContext): readonly string[] {
+  return ctx.collocation ? [...FLAT_COLUMNS, ...ICEINFO_COLUMNS] : FLAT_COLUMNS;
 }
 
 /** The cells of one observation, in FLAT_COLUMNS order. */
@@ -153,20 +162,24 @@ export function flatRow(o: Observation, ctx: FlatContext): Cell[] {
     o.savedBy,
     o.deviceId,
     o.deleted,
+    ...(ctx.collocation ? iceinfoCells(ctx.collocation.get(o.id)) : []),
   ];
 }
 
 /** The same cells as an object keyed by column name. */
 export function flatRecord(o: Observation, ctx: FlatContext): Record<string, Cell> {
   const row = flatRow(o, ctx);
+  const cols = flatColumns(ctx);
   const out: Record<string, Cell> = {};
-  for (let i = 0; i < FLAT_COLUMNS.length; i++) out[FLAT_COLUMNS[i] as string] = row[i] as Cell;
+  for (let i = 0; i < cols.length; i++) out[cols[i] as string] = row[i] as Cell;
   return out;
 }
 
 export interface FlatOptions {
   /** Include soft-deleted observations (column `deleted` says which); default false. */
   includeDeleted?: boolean;
+  /** Chart and grid values per observation id (src/domain/collocation), appended as ICEINFO_COLUMNS. */
+  collocation?: ReadonlyMap<string, Collocation>;
 }
 
 export function exportedObservations(observations: readonly Observation[], opts: FlatOptions = {}): Observation[] {

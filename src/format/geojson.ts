@@ -41,7 +41,7 @@ export function trackGeometry(track: readonly TrackPoint[]): LineString | MultiL
 }
 
 export function toGeoJson(bundle: LogBundle, opts: FlatOptions = {}): FeatureCollection<Geometry | null> {
-  const ctx = flatContext(bundle.cruise);
+  const ctx = flatContext(bundle.cruise, opts.collocation);
   const features: Feature<Geometry | null>[] = exportedObservations(bundle.observations, opts).map((o) => ({
     type: 'Feature',
     id: o.id,

@@ -4,6 +4,6 @@ import { exportedObservations, flatContext, flatRecord, type FlatOptions } from 
 import type { LogBundle } from './types';
 
 export function writeNdjson(bundle: LogBundle, opts: FlatOptions = {}): string[] {
-  const ctx = flatContext(bundle.cruise);
+  const ctx = flatContext(bundle.cruise, opts.collocation);
   return exportedObservations(bundle.observations, opts).map((o) => JSON.stringify(flatRecord(o, ctx)) + '\n');
 }

@@ -4,6 +4,7 @@ import { writeGeoJson } from '../../format/geojson.ts';
 import { writeNdjson } from '../../format/ndjson.ts';
 import { parseOptions, stringOption } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
+import { collocateLoaded, ICEINFO_OPTIONS, ICEINFO_USAGE, loadIceInfo } from '../iceInfoFiles.ts';
 import { loadLog, printProblems, writeLog, writeOut } from '../logFiles.ts';
 import { visible } from '../terminalText.ts';
 
@@ -21,14 +22,18 @@ const usage = `Usage: npm run cli -- convert FILE --to ${TARGETS.join('|')} -o O
   --include-deleted   keep deleted observations in geojson, csv and ndjson (column "deleted")
 
 OUT is replaced whole or not at all (written beside it, flushed, renamed). A log or zip is read
-back before it is written: the command never writes a file that validate would reject.`;
+back before it is written: the command never writes a file that validate would reject.
+
+With --chart or --grid, geojson, csv and ndjson get the chart and grid values at each
+observation as a block of columns at the end (derived values; docs/format.md):
+${ICEINFO_USAGE}`;
 
 export const convertCommand: Command = {
   name: 'convert',
   summary: 'convert a log file to GeoJSON, CSV, NDJSON, the current log version or a zip',
   usage,
-  run(args: string[], io: CliIO): number {
-    const { values, positionals } = parseOptions(args, { to: { type: 'string' }, out: { type: 'string', short: 'o' }, 'include-deleted': { type: 'boolean' } }, true);
+  async run(args: string[], io: CliIO): Promise<number> {
+    const { values, positionals } = parseOptions(args, { to: { type: 'string' }, out: { type: 'string', short: 'o' }, 'include-deleted': { type: 'boolean' }, ...ICEINFO_OPTIONS }, true);
     if (positionals.length !== 1) throw new UsageError('give exactly one FILE');
     const to = stringOption(values, 'to', true);
     const out = stringOption(values, 'out', true);
@@ -38,8 +43,14 @@ export const convertCommand: Command = {
       printProblems(io, log);
       return EXIT_FAILURE;
     }
-    const opts = { includeDeleted: values['include-deleted'] === true };
     const b = log.bundle;
+    let collocation;
+    if (values.chart !== undefined || values.grid !== undefined) {
+      const info = await loadIceInfo(values, io);
+      if (!info) return EXIT_FAILURE;
+      collocation = collocateLoaded(b.observations, info);
+    }
+    const opts = { includeDeleted: values['include-deleted'] === true, ...(collocation ? { collocation } : {}) };
     if (to === 'geojson') writeOut(out, writeGeoJson(b, opts));
     else if (to === 'csv') writeOut(out, writeCsv(b, opts));
     else if (to === 'ndjson') writeOut(out, writeNdjson(b, opts));

@@ -6,6 +6,7 @@ import { getSetting, listCruises } from '../../db';
 import { BackupPanel } from './BackupPanel';
 import { ConflictsPanel } from './ConflictsPanel';
 import { ExportPanel } from './ExportPanel';
+import { IceInfoPanel } from './IceInfoPanel';
 import { ImportPanel } from './ImportPanel';
 import './exchange.css';
 
@@ -41,6 +42,7 @@ export function ExchangeScreen() {
         <ImportPanel onImported={(id) => setChosen(id)} />
         <BackupPanel cruiseId={activeId ?? cruiseId} cruiseName={cruises?.find((c) => c.id === (activeId ?? cruiseId))?.name ?? null} />
       </div>
+      <IceInfoPanel />
       <ConflictsPanel cruiseId={cruiseId} />
     </section>
   );

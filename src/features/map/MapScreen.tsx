@@ -10,6 +10,8 @@ import { MapLegend } from './MapLegend';
 import { MapFilters } from './MapFilters';
 import { ObservationDetails } from './ObservationDetails';
 import { useMapData } from './useMapData';
+import { useCollocation } from '../iceinfo/useIceInfo';
+import { IceInfoLegend } from './IceInfoLegend';
 import { isPolarCruise, type LonLat } from './view';
 import type { ProjectionKind } from './style';
 
@@ -23,6 +25,7 @@ export function MapScreen() {
   const selectedId = useSelection((s) => s.selectedId);
   const clear = useSelection((s) => s.clear);
   const [frameRequest, setFrameRequest] = useState(0);
+  const ice = useCollocation(data.observations);
 
   const polar = useMemo(() => {
     const pts: LonLat[] = data.observations.flatMap((o) => (o.position ? [[o.position.lon, o.position.lat] as const] : []));
@@ -76,12 +79,15 @@ export function MapScreen() {
             theme={theme}
             projection={projection}
             frameRequest={frameRequest}
+            iceCharts={ice.charts}
+            iceGrids={ice.grids}
           />
         </div>
         <aside className="map-side">
-          {selected && <ObservationDetails observation={selected} observers={observers} onClose={clear} />}
+          {selected && <ObservationDetails observation={selected} observers={observers} onClose={clear} collocation={ice.collocation.get(selected.id) ?? null} gridMethod={ice.settings.gridMethod} />}
           <MapFilters observers={observers} />
           <MapLegend theme={theme} />
+          <IceInfoLegend theme={theme} charts={ice.charts} grids={ice.grids} />
         </aside>
       </div>
     </section>

@@ -1,6 +1,7 @@
 // Mounts the MapLibre map (through MapController) and keeps it in step with React state. Data
 // goes to the map only when its identity changes; selection and filters never reload data.
 import { useEffect, useRef, useState } from 'react';
+import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chartModel';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
 import { useSelection } from '../../state/selection';
 import { useObservationFilters } from '../../state/observationFilters';
@@ -19,7 +20,13 @@ export interface MapViewProps {
   projection: ProjectionKind;
   /** Changes to this number ask the map to frame the whole cruise again. */
   frameRequest: number;
+  /** Switched-on ice charts and grids, drawn under the observations. */
+  iceCharts?: readonly IceChart[];
+  iceGrids?: readonly ConcentrationGrid[];
 }
+
+const NO_CHARTS: readonly IceChart[] = [];
+const NO_GRIDS: readonly ConcentrationGrid[] = [];
 
 export function MapView(props: MapViewProps) {
   const container = useRef<HTMLDivElement>(null);
@@ -30,6 +37,8 @@ export function MapView(props: MapViewProps) {
   const selectionSource = useSelection((s) => s.source);
   const filters = useObservationFilters();
   const { cruiseId, observations, observers, track, intervalMinutes, theme, projection, frameRequest } = props;
+  const iceCharts = props.iceCharts ?? NO_CHARTS;
+  const iceGrids = props.iceGrids ?? NO_GRIDS;
   const initial = useRef({ theme, projection });
 
   useEffect(() => {
@@ -61,6 +70,7 @@ export function MapView(props: MapViewProps) {
       observerIds: filters.observerIds,
     });
   }, [filters.from, filters.to, filters.observerIds]);
+  useEffect(() => controller.current?.setIceInfo(iceCharts, iceGrids), [iceCharts, iceGrids]);
   useEffect(() => controller.current?.setTheme(theme), [theme]);
   useEffect(() => controller.current?.setProjection(projection), [projection]);
   useEffect(() => {

@@ -17,6 +17,8 @@ import type { BandKey } from './concentrationBands';
 import { MapWorker, packTrack, type PreparedPair, type SourceData } from './mapWorkerClient';
 import { beyondMercator, MERCATOR_LIMIT_LAT, type TrackArrays } from './trackLevels';
 import { PolarOverlay, type PolarPoint } from './polarOverlay';
+import { IceInfoLayers } from './iceInfoMap';
+import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chartModel';
 import { buildStyle, EGG_MIN_ZOOM, eggFilter, LAYER, MARK_PREFIX, markImageRadius, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
 import { globeCamera, lonLatBounds, sample, type LonLat } from './view';
 
@@ -73,6 +75,7 @@ export class MapController {
   private releaseWhenIdle: (() => void)[] = [];
   private destroyed = false;
   private overlay: PolarOverlay;
+  private iceInfo: IceInfoLayers | null = null;
 
   constructor(container: HTMLElement, private readonly opts: MapControllerOptions) {
     this.theme = opts.theme;
@@ -381,12 +384,21 @@ export class MapController {
     });
   }
 
+  /** Charts and grids to draw under the observations (the visible ones only). */
+  setIceInfo(charts: readonly IceChart[], grids: readonly ConcentrationGrid[]): void {
+    this.whenLoaded(() => {
+      this.iceInfo ??= new IceInfoLayers(this.map, this.theme);
+      this.iceInfo.set(charts, grids);
+    });
+  }
+
   /** A theme change repaints: every paint property of the new theme's style is applied. */
   setTheme(theme: MapTheme): void {
     if (theme === this.theme) return;
     this.theme = theme;
     this.overlay.setPalette(PALETTES[theme], theme);
     this.whenLoaded(() => {
+      this.iceInfo?.setTheme(theme);
       const style = buildStyle({ theme, projection: this.projection, land110: coarseLand().land, coast110: coarseLand().coast, graticule: graticuleData() });
       for (const layer of style.layers) {
         for (const [prop, value] of Object.entries(layer.paint ?? {})) this.map.setPaintProperty(layer.id, prop, value);
@@ -477,6 +489,7 @@ export class MapController {
   }
 
   destroy(): void {
+    this.iceInfo?.destroy();
     this.destroyed = true;
     this.worker.dispose();
     this.overlay.destroy();

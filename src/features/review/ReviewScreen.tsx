@@ -6,6 +6,7 @@ import type { Cruise, Observation, TrackPoint } from '../../domain/model';
 import { VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
 import { REVIEW_CAUTIONS } from '../../domain/stats';
 import { effectiveTheme, useThemeStore } from '../../state/theme';
+import { AgreementPanel } from './AgreementPanel';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
@@ -82,6 +83,7 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
           <BandTable table={figures.review.bands} />
           <HandoverTable table={figures.review.handover} observers={cruise.observers} highlight={observerId || null} />
           <FindingsPanel findings={figures.findings} cruise={cruise} observations={byId} />
+          <AgreementPanel cruise={cruise} observations={observations} />
         </>
       )}
       <section aria-labelledby="review-cautions-title" className="review-section review-cautions">

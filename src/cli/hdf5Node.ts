@@ -1,0 +1,31 @@
+// h5wasm in Node: its Node build reads host files directly (Emscripten NODERAWFS), so the bytes
+// go to a private temporary file for the reader and the file is removed when it is closed.
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import h5wasm from 'h5wasm/node';
+import type { Hdf5FileLike, Hdf5Opener } from '../iceinfo/gridRead.ts';
+
+export const nodeHdf5: Hdf5Opener = {
+  async open(bytes: Uint8Array): Promise<Hdf5FileLike> {
+    await h5wasm.ready;
+    const dir = mkdtempSync(join(tmpdir(), 'floe-ledger-h5-'));
+    const path = join(dir, 'grid.h5');
+    writeFileSync(path, bytes);
+    let file: InstanceType<typeof h5wasm.File>;
+    try {
+      file = new h5wasm.File(path, 'r');
+    } catch (e) {
+      rmSync(dir, { recursive: true, force: true });
+      throw e;
+    }
+    return {
+      keys: () => file.keys(),
+      get: (name) => file.get(name) as ReturnType<Hdf5FileLike['get']>,
+      close: () => {
+        file.close();
+        rmSync(dir, { recursive: true, force: true });
+      },
+    };
+  },
+};

@@ -1,0 +1,46 @@
+// The stored charts and grids shown on the map (the switched-on ones), the collocation of a
+// cruise's observations with them, and the user's limits: shared by the map and the Review.
+import { useLiveQuery } from 'dexie-react-hooks';
+import { useMemo } from 'react';
+import { getSetting, listIceCharts, listIceGrids, type IceChartRow, type IceGridRow } from '../../db';
+import { collocate, DEFAULT_COLLOCATION, type Collocation, type CollocationOptions, type GridMethod, type ProductNote } from '../../domain/collocation';
+import type { Observation } from '../../domain/model';
+import { planeOf } from '../../iceinfo/projections';
+
+export interface IceInfoSettings extends CollocationOptions {
+  gridMethod: GridMethod;
+}
+
+export const DEFAULT_ICEINFO_SETTINGS: IceInfoSettings = { ...DEFAULT_COLLOCATION, gridMethod: 'bilinear' };
+
+const NONE_C: IceChartRow[] = [];
+const NONE_G: IceGridRow[] = [];
+
+export function useIceInfoProducts(): { charts: IceChartRow[]; grids: IceGridRow[]; settings: IceInfoSettings } {
+  const charts = useLiveQuery(async () => (await listIceCharts()).filter((c) => c.visible), []) ?? NONE_C;
+  const grids = useLiveQuery(async () => (await listIceGrids()).filter((g) => g.visible), []) ?? NONE_G;
+  const settings = useLiveQuery(() => getSetting('iceInfoCollocation'), []) ?? DEFAULT_ICEINFO_SETTINGS;
+  return { charts, grids, settings };
+}
+
+export function productNotes(charts: readonly IceChartRow[], grids: readonly IceGridRow[]): ProductNote[] {
+  return [
+    ...charts.map((c): ProductNote => ({ kind: 'chart', sourceName: c.sourceName, time: c.chartTime, resolutionKm: null, fileName: c.fileName })),
+    ...grids.map((g): ProductNote => ({ kind: 'grid', sourceName: g.sourceName, time: g.gridTime, resolutionKm: Math.abs(g.dx) / 1000, fileName: g.fileName })),
+  ];
+}
+
+/** Chart and grid values per observation id (empty when nothing is stored). */
+export function useCollocation(observations: readonly Observation[]): { collocation: Map<string, Collocation>; charts: IceChartRow[]; grids: IceGridRow[]; settings: IceInfoSettings } {
+  const { charts, grids, settings } = useIceInfoProducts();
+  const collocation = useMemo(() => {
+    if (charts.length === 0 && grids.length === 0) return new Map<string, Collocation>();
+    return collocate(
+      observations.filter((o) => !o.deleted),
+      charts.map((chart) => ({ chart, toPlane: planeOf(chart.crs).toPlane })),
+      grids.map((grid) => ({ grid, toPlane: planeOf(grid.crs).toPlane })),
+      settings,
+    );
+  }, [observations, charts, grids, settings]);
+  return { collocation, charts, grids, settings };
+}

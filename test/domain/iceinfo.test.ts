@@ -1,0 +1,155 @@
+import { describe, expect, it } from 'vitest';
+import {
+  agreement,
+  agreementFigures,
+  chartPairs,
+  collocate,
+  GRID_FLAG,
+  gridPairs,
+  pointInPolygon,
+  pointInRings,
+  readConcentrationCode,
+  readStageCode,
+  ringBbox,
+  sampleGrid,
+  unwrapLongitudes,
+  type AgreementPair,
+  type ChartAttributes,
+  type ChartLocator,
+  type GridLocator,
+} from '../../src/domain/collocation';
+
+const attrs = (a: Partial<ChartAttributes>): ChartAttributes => ({ POLY_TYPE: 'I', CT: null, CA: null, SA: null, FA: null, CB: null, SB: null, FB: null, CC: null, SC: null, FC: null, CN: null, CD: null, ...a });
+
+describe('SIGRID-3 codes read back (WMO/TD-No. 1214)', () => {
+  it('reads single values, 9+/10, 10/10, ranges and unknown', () => {
+    // WMO/TD-No. 1214 concentration table: 00 ice free, 01 < 1/10, 10..90 one value, 91 9+/10,
+    // 92 10/10, "ab" ranges (46 = 4-6/10), 99 unknown.
+    expect(readConcentrationCode('00')).toEqual({ lo: 0, hi: 0, tenths: 0 });
+    expect(readConcentrationCode('01')).toEqual({ lo: 0, hi: 1, tenths: 0 });
+    expect(readConcentrationCode('30')).toEqual({ lo: 3, hi: 3, tenths: 3 });
+    expect(readConcentrationCode('91')).toEqual({ lo: 9, hi: 10, tenths: 9.5 });
+    expect(readConcentrationCode('92')).toEqual({ lo: 10, hi: 10, tenths: 10 });
+    expect(readConcentrationCode('46')).toEqual({ lo: 4, hi: 6, tenths: 5 });
+    expect(readConcentrationCode(79)).toEqual({ lo: 7, hi: 9, tenths: 8 });
+    expect(readConcentrationCode('99')).toBeNull();
+    expect(readConcentrationCode('')).toBeNull();
+    expect(readConcentrationCode('64')).toBeNull(); // a range must rise
+    expect(readConcentrationCode('ab')).toBeNull();
+  });
+  it('reads stage codes to the WMO-No. 259 stages', () => {
+    // WMO/TD-No. 1214 stage table: 81 new, 83 young, 86 first-year, 87 thin FY, 91 medium FY,
+    // 93 thick FY, 95 old, 97 multi-year; 80 no stage, 99 unknown.
+    expect(readStageCode('81')).toBe('new');
+    expect(readStageCode('83')).toBe('young');
+    expect(readStageCode('86')).toBe('first-year');
+    expect(readStageCode('91')).toBe('medium-first-year');
+    expect(readStageCode('93')).toBe('thick-first-year');
+    expect(readStageCode('95')).toBe('old');
+    expect(readStageCode('97')).toBe('multi-year');
+    expect(readStageCode('80')).toBeNull();
+    expect(readStageCode('99')).toBeNull();
+    expect(readStageCode('50')).toBeNull();
+  });
+});
+
+describe('point in polygon', () => {
+  const square = [0, 0, 10, 0, 10, 10, 0, 10, 0, 0];
+  const hole = [4, 4, 6, 4, 6, 6, 4, 6, 4, 4];
+  it('tells the two sides of an edge apart and honours holes', () => {
+    expect(pointInRings([square], 9.999, 5)).toBe(true);
+    expect(pointInRings([square], 10.001, 5)).toBe(false);
+    expect(pointInRings([square], 10, 5)).toBe(true); // on the edge: inside
+    expect(pointInRings([square, hole], 5, 5)).toBe(false);
+    expect(pointInRings([square, hole], 3.9, 5)).toBe(true);
+  });
+  it('finds a point across the antimeridian in a ring written either way', () => {
+    // One ring from 170 E to 170 W written with a jump (170 .. -170), one with 190.
+    const jump = unwrapLongitudes([170, 60, -170, 60, -170, 70, 170, 70, 170, 60]);
+    expect(jump).toEqual([170, 60, 190, 60, 190, 70, 170, 70, 170, 60]);
+    const bbox = ringBbox(jump);
+    expect(pointInPolygon([jump], bbox, -175, 65, true)).toBe(true); // 175 W
+    expect(pointInPolygon([jump], bbox, 175, 65, true)).toBe(true); // 175 E
+    expect(pointInPolygon([jump], bbox, -165, 65, true)).toBe(false); // 165 W, outside
+    expect(pointInPolygon([jump], bbox, 165, 65, true)).toBe(false);
+    expect(pointInPolygon([jump], bbox, 180, 65, true)).toBe(true);
+  });
+});
+
+describe('grid sampling', () => {
+  // 3 x 3 cells of 10 m, row 0 on top (north), centres at x 0,10,20 and y 20,10,0.
+  const P = 255;
+  const g = { width: 3, height: 3, x0: 0, y0: 20, dx: 10, dy: -10, cells: Uint8Array.from([0, 20, 40, 60, 80, GRID_FLAG.land, P, 100, GRID_FLAG.poleHole]) };
+  it('nearest cell and bilinear between four centres', () => {
+    const s = sampleGrid(g, 4, 16); // nearest centre (0, 20): 0 %
+    expect(s).toMatchObject({ kind: 'value', nearestPercent: 0, row: 0, col: 0 });
+    // Bilinear by hand: tx = 0.4, ty = 0.4 between 0, 20 (row 0) and 60, 80 (row 1):
+    // 0.36*0 + 0.24*20 + 0.24*60 + 0.16*80 = 32.
+    expect(s.kind === 'value' && s.bilinearPercent).toBeCloseTo(32, 10);
+  });
+  it('leaves flagged neighbours out and renormalises', () => {
+    // Between cells (1,1)=80, (1,2)=land, (2,1)=100, (2,2)=pole hole, at tx = ty = 0.2: weights
+    // 0.64 (80), 0.16 (land, out), 0.16 (100), 0.04 (pole hole, out): (0.64*80 + 0.16*100)/0.8 = 84.
+    const s = sampleGrid(g, 12, 8);
+    expect(s).toMatchObject({ kind: 'value', nearestPercent: 80 });
+    expect(s.kind === 'value' && s.bilinearPercent).toBeCloseTo(84, 10);
+  });
+  it('reports the flag of the nearest cell, and outside', () => {
+    expect(sampleGrid(g, 20, 10)).toMatchObject({ kind: 'flag', flag: 'land' });
+    expect(sampleGrid(g, 19, 1)).toMatchObject({ kind: 'flag', flag: 'poleHole' });
+    expect(sampleGrid(g, 0, 0)).toMatchObject({ kind: 'flag', flag: 'missing' });
+    expect(sampleGrid(g, 26, 10)).toEqual({ kind: 'outside' });
+    expect(sampleGrid(g, -5.1, 10)).toEqual({ kind: 'outside' });
+  });
+});
+
+describe('collocation', () => {
+  const ident = (lon: number, lat: number) => [lon, lat] as const;
+  const chart = (id: string, t: string, ct: string): ChartLocator => ({
+    chart: { id, sourceName: id, chartTime: t, geographic: true, polygons: [{ rings: [[0, 70, 10, 70, 10, 80, 0, 80, 0, 70]], bbox: [0, 70, 10, 80], attributes: attrs({ CT: ct, SA: '86' }) }] },
+    toPlane: ident,
+  });
+  const obs = (id: string, t: string, lon: number, lat: number, total: number | null = 8) => ({ id, time: t, position: { lat, lon, source: 'manual' as const }, observerId: 'ob1', totalConcentration: total, deleted: false });
+  it('takes the chart nearest in time within the limit', () => {
+    const charts = [chart('mon', '2026-03-02T00:00:00Z', '30'), chart('thu', '2026-03-05T00:00:00Z', '92')];
+    const list = [obs('a', '2026-03-03T06:00:00Z', 5, 75), obs('b', '2026-03-03T18:00:00Z', 5, 75), obs('c', '2026-03-12T00:00:00Z', 5, 75), obs('d', '2026-03-03T06:00:00Z', 20, 75)];
+    const c = collocate(list, charts, [], { chartMaxHours: 72, gridMaxHours: 24 });
+    expect(c.get('a')?.chart).toMatchObject({ chartId: 'mon', hoursApart: 30, concentration: { tenths: 3 }, stage: 'first-year', polygonIndex: 0 });
+    expect(c.get('b')?.chart).toMatchObject({ chartId: 'thu', hoursApart: -30, concentration: { tenths: 10 } });
+    expect(c.has('c')).toBe(false); // 7 days from either chart
+    expect(c.get('d')?.chart).toMatchObject({ chartId: 'mon', polygonIndex: null, concentration: null });
+  });
+  it('samples the grid nearest in time', () => {
+    const grid: GridLocator = { grid: { id: 'g', sourceName: 'g', gridTime: '2026-03-03T12:00:00Z', width: 2, height: 2, x0: 0, y0: 80, dx: 10, dy: -10, cells: Uint8Array.from([50, 70, 90, 100]) }, toPlane: ident };
+    const c = collocate([obs('a', '2026-03-03T00:00:00Z', 5, 75, 9)], [], [grid], { chartMaxHours: 1, gridMaxHours: 24 });
+    const m = c.get('a')?.grid;
+    expect(m?.hoursApart).toBe(-12);
+    // Nearest: (5, 75) is equidistant; Math.round picks col 1, row 1 (100 %). Bilinear: the mean, 77.5 %.
+    expect(m?.sample).toMatchObject({ kind: 'value', nearestPercent: 100, bilinearPercent: 77.5 });
+    const list = [obs('a', '2026-03-03T00:00:00Z', 5, 75, 9)];
+    expect(gridPairs(list, c, 'bilinear')[0]?.difference).toBeCloseTo(9 - 7.75, 10);
+    expect(gridPairs(list, c, 'nearest')[0]?.difference).toBeCloseTo(-1, 10);
+    expect(chartPairs(list, c)).toEqual([]);
+  });
+});
+
+describe('agreement figures', () => {
+  const pair = (id: string, observed: number, product: number, observerId = 'ob1'): AgreementPair => ({ observationId: id, time: `2026-03-03T0${id}:00:00Z`, observerId, observed, product, difference: observed - product });
+  it('count, mean, RMS and shares within 1/10 and 2/10, by hand', () => {
+    // Differences 0, 1, -2, 3: mean 0.5; RMS sqrt((0+1+4+9)/4) = sqrt(3.5); within 1: 2/4; within 2: 3/4.
+    const pairs = [pair('1', 9, 9), pair('2', 9, 8), pair('3', 3, 5, 'ob2'), pair('4', 0, -3)];
+    const f = agreementFigures(pairs);
+    expect(f.count).toBe(4);
+    expect(f.meanDifference).toBeCloseTo(0.5, 12);
+    expect(f.rmsDifference).toBeCloseTo(Math.sqrt(3.5), 12);
+    expect(f.within1Share).toBe(0.5);
+    expect(f.within2Share).toBe(0.75);
+    const a = agreement(pairs, 2);
+    expect(a.largest.map((p) => p.observationId)).toEqual(['4', '3']);
+    expect(a.byRegime.pack.count).toBe(2);
+    expect(a.byRegime.marginal.count).toBe(1);
+    expect(a.byRegime['open-water'].count).toBe(1);
+    expect(a.byObserver.ob2?.meanDifference).toBe(-2);
+    expect(agreementFigures([]).meanDifference).toBeNull();
+  });
+});
