@@ -39,6 +39,10 @@ export class IceInfoLayers {
   }
 
   set(charts: readonly IceChart[], grids: readonly ConcentrationGrid[]): void {
+    // The stored lists come back as new arrays after every change to their tables: redraw only
+    // when the products themselves differ, and leave the map alone while there are none.
+    const key = (xs: readonly (IceChart | ConcentrationGrid)[]) => xs.map((x) => `${x.id}@${x.importedAt}`).join('|');
+    if (key(charts) === key(this.charts) && key(grids) === key(this.grids)) return;
     this.charts = charts;
     this.grids = grids;
     this.draw();
@@ -52,8 +56,9 @@ export class IceInfoLayers {
   private draw(): void {
     const m = this.map;
     const p = ICEINFO_PALETTES[this.theme];
-    const fc = chartFeatures(this.charts);
     const src = m.getSource(ICEINFO_SRC.charts) as GeoJSONSource | undefined;
+    if (!src && this.charts.length === 0 && this.grids.length === 0 && this.gridIds.length === 0) return;
+    const fc = chartFeatures(this.charts);
     if (src) src.setData(fc);
     else m.addSource(ICEINFO_SRC.charts, { type: 'geojson', data: fc });
     if (!m.getLayer(ICEINFO_LAYER.chartFill)) {
