@@ -20,6 +20,13 @@ export async function markOnServer(marks: readonly SyncMark[]): Promise<void> {
   }
 }
 
+/** Which of the given documents the server database `server` is marked as holding. */
+export async function heldOnServer(server: string, docIds: readonly string[]): Promise<Set<string>> {
+  if (docIds.length === 0) return new Set();
+  const rows = await getDb().syncMarks.bulkGet(docIds.map((id) => [server, id] as [string, string]));
+  return new Set(rows.flatMap((r) => (r ? [r.docId] : [])));
+}
+
 /** The marks of a cruise's documents in one server database. */
 export function serverMarks(server: string, cruiseId: string): Promise<SyncMark[]> {
   return getDb().syncMarks.where('[server+cruiseId]').equals([server, cruiseId]).toArray();

@@ -100,6 +100,23 @@ export function bundleDocs(bundle: LogBundle): SyncDoc[] {
   return docs;
 }
 
+/**
+ * A pulled batch with versions the server is known to hold of the same observations added as
+ * history. A batch alone lacks the revisions its newer ones build on, and the merge rules read
+ * descent from what a log holds (src/format/merge.ts): without them, an edit made on another
+ * laptop would look like a conflict with the revision it replaced. With them, the batch is
+ * judged as an import of the server's whole log would be. Versions already there merge as
+ * identical.
+ */
+export function withHeldVersions(bundle: LogBundle, held: readonly Observation[]): LogBundle {
+  return held.length === 0 ? bundle : { ...bundle, history: [...bundle.history, ...held] };
+}
+
+/** The ids of the observations a bundle holds versions of. */
+export function observationIdsOf(bundle: LogBundle): Set<string> {
+  return new Set([...bundle.observations, ...bundle.history, ...bundle.conflicts].map((o) => o.id));
+}
+
 // ---------------------------------------------------------------- checking pulled documents
 
 export interface Refusal {

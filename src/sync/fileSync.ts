@@ -3,7 +3,7 @@
 import { applyPlanToBundle, bundleTarget, planMerge } from '../format/merge';
 import type { LogBundle, PhotoBytes } from '../format/types';
 import { CouchError, type CouchClient } from './couch';
-import { bundleDocs, checkPulled, type Refusal } from './documents';
+import { bundleDocs, checkPulled, observationIdsOf, withHeldVersions, type Refusal } from './documents';
 import { cruiseDatabaseName } from './ids';
 import { bundleWithPhotos, fetchPhotos, photoDoc } from './photos';
 import { readPage, sendDocs, type SendResult } from './transfer';
@@ -60,8 +60,13 @@ export async function pullBundle(client: CouchClient, cruiseId: string, onProgre
     const fetched = await fetchPhotos(client, db, checked.photos, (id) => photos.has(id));
     refused.push(...fetched.refused);
     for (const [id, b] of fetched.bytes) photos.set(id, b);
-    const incoming = bundleWithPhotos(checked, fetched);
-    if (incoming) bundle = applyPlanToBundle(bundle, planMerge(bundleTarget(bundle), incoming));
+    const pulled = bundleWithPhotos(checked, fetched);
+    if (pulled) {
+      // Everything read before came from this server: it all counts as held (withHeldVersions).
+      const ids = observationIdsOf(pulled);
+      const held = bundle ? [...bundle.observations, ...bundle.history, ...bundle.conflicts].filter((o) => ids.has(o.id)) : [];
+      bundle = applyPlanToBundle(bundle, planMerge(bundleTarget(bundle), withHeldVersions(pulled, held)));
+    }
     documents += page.count;
     onProgress?.(documents);
     since = page.lastSeq;

@@ -8,6 +8,7 @@ import {
   forgetServer,
   getPhoto,
   getSyncState,
+  heldOnServer,
   trackPointsOfHour,
   loadMergeTarget,
   markOnServer,
@@ -23,7 +24,7 @@ import type { Observation } from '../domain/model';
 import { planMerge, planIsEmpty, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
 import type { PhotoMeta } from '../format/types';
 import { CouchClient } from './couch';
-import { checkPulled, cruiseDoc, observationDoc, trackDoc, type Refusal, type SyncDoc } from './documents';
+import { checkPulled, cruiseDoc, observationDoc, observationIdsOf, trackDoc, withHeldVersions, type Refusal, type SyncDoc } from './documents';
 import { checkpointDocId, cruiseDatabaseName } from './ids';
 import { bundleWithPhotos, fetchPhotos, photoDoc } from './photos';
 import { PUSH_BATCH_BYTES, readPage, sendDocs, type SendResult } from './transfer';
@@ -68,6 +69,19 @@ export interface Outbox {
 
 /** Track of the running hour is sent at most this often; a finished hour at once. */
 export const TRACK_HOLD_MS = 10 * 60 * 1000;
+
+/** The stored versions of the batch's observations that the server holds (see withHeldVersions). */
+async function storedOnServer(t: SyncTarget, target: MergeTarget, ids: Set<string>): Promise<Observation[]> {
+  const stored = [...ids].flatMap((id) => {
+    const v = target.versions(id);
+    return v ? [v.current, ...v.others] : [];
+  });
+  if (stored.length === 0) return [];
+  // Conflict copies may share a version key with other content: their ids are computed afresh.
+  const docIds = stored.map((v) => observationDoc(v)._id);
+  const held = await heldOnServer(targetKey(t), docIds);
+  return stored.filter((_, i) => held.has(docIds[i] as string));
+}
 
 /** What the server does not hold yet: cruise record, saved versions (oldest first), track hours. */
 export async function outbox(t: SyncTarget, lastTrackSend: Map<string, number> = new Map(), now = Date.now()): Promise<Outbox> {
@@ -294,8 +308,9 @@ async function mergePulled(t: SyncTarget, raw: unknown[], known: MergeTarget | n
     const accepted = (raw as SyncDoc[]).filter((d) => d && typeof d === 'object' && acceptedIds.has(d._id));
     const refused = [...checked.refused, ...photos.refused];
     const none = { accepted, refused, changed: 0, conflicts: 0, target };
-    const bundle = bundleWithPhotos(checked, photos);
-    if (!bundle) return none;
+    const pulled = bundleWithPhotos(checked, photos);
+    if (!pulled) return none;
+    const bundle = withHeldVersions(pulled, await storedOnServer(t, target, observationIdsOf(pulled)));
     const plan = planMerge(target, bundle);
     const c = plan.counts;
     if (planIsEmpty(plan)) return none;
