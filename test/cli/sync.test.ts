@@ -112,6 +112,21 @@ describe('push and pull', { timeout: 120_000 }, () => {
     expect(read(outJson).photos.map((p) => p.id).sort()).toEqual(['ph-1', 'ph-2']);
   });
 
+  it('a session outlives a SIGKILL and restart of the ship server: the session secret is kept in its folder', async () => {
+    let s = await startShipServer({ dir: join(dir, 'restarted') });
+    try {
+      await addAccounts(s.url, { name: 'admin', password: 'ice-admin' }, [{ name: 'lab', password: 'lab-pw' }]);
+      const lab = new CouchClient({ url: s.url, cookies: 'manual' });
+      await lab.logIn('lab', 'lab-pw');
+      expect(await lab.sessionUser()).toBe('lab');
+      await s.kill();
+      s = await startShipServer({ dir: join(dir, 'restarted'), port: s.port });
+      expect(await lab.sessionUser()).toBe('lab');
+    } finally {
+      await s.stop();
+    }
+  });
+
   it('logs in with a session when the server has accounts; the password comes from the environment only', async () => {
     const s = await startShipServer({ dir: join(dir, 'secured') });
     try {

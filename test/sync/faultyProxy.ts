@@ -18,13 +18,15 @@ export interface FaultyProxy {
   faulted: number;
   /** Every request forwarded or faulted, as `METHOD /path?query`, oldest first. */
   seen: string[];
+  /** Cuts the connections held by `hang` (a link that comes back resets them). */
+  releaseHanging(): void;
   close(): Promise<void>;
 }
 
 export async function startFaultyProxy(target: string): Promise<FaultyProxy> {
   const t = new URL(target);
   const hanging = new Set<ServerResponse>();
-  const proxy: FaultyProxy = { url: '', fault: 'none', only: null, faulted: 0, seen: [], close: async () => undefined };
+  const proxy: FaultyProxy = { url: '', fault: 'none', only: null, faulted: 0, seen: [], releaseHanging: () => undefined, close: async () => undefined };
   const forward = (req: IncomingMessage, res: ServerResponse) => {
     const up = httpRequest({ host: t.hostname, port: t.port, method: req.method, path: req.url, headers: { ...req.headers, host: t.host } }, (r) => {
       res.writeHead(r.statusCode ?? 502, r.headers);
@@ -86,6 +88,10 @@ export async function startFaultyProxy(target: string): Promise<FaultyProxy> {
   });
   await new Promise<void>((ok) => server.listen(0, '127.0.0.1', ok));
   proxy.url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
+  proxy.releaseHanging = () => {
+    for (const r of hanging) r.destroy();
+    hanging.clear();
+  };
   proxy.close = () =>
     new Promise<void>((ok) => {
       for (const r of hanging) r.destroy();

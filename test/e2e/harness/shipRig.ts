@@ -33,8 +33,10 @@ export interface ShipRig {
   web: StaticServer;
   /** The address the laptops are given. */
   serverUrl: string;
-  /** Kills the ship server (SIGKILL) and starts it again on the same port and folder. */
-  restartAfterKill(): Promise<void>;
+  /** Kills the ship server (SIGKILL), as a crash or a power cut of its laptop. */
+  kill(): Promise<void>;
+  /** Starts the killed server again on the same port and folder. */
+  restart(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -62,8 +64,8 @@ export async function startShipRig(opts: { proxy?: boolean } = {}): Promise<Ship
     proxy,
     web,
     serverUrl: proxy?.url ?? ship.url,
-    async restartAfterKill() {
-      await ship.kill();
+    kill: () => ship.kill(),
+    async restart() {
       ship = await startShipServer({ dir, port: ship.port });
       rig.ship = ship;
     },
