@@ -115,16 +115,19 @@ export class CouchClient {
     const timer = setTimeout(() => controller.abort(), timeout);
     const where = `${method} ${path.split('?')[0]}`;
     try {
+      const text = body === undefined ? undefined : JSON.stringify(body);
+      const send = () => this.fetchFn(`${this.base}${path}`, { method, headers, body: text, signal: controller.signal, credentials: this.manualCookies ? 'omit' : 'include', cache: 'no-store' });
       let res: Response;
       try {
-        res = await this.fetchFn(`${this.base}${path}`, {
-          method,
-          headers,
-          body: body === undefined ? undefined : JSON.stringify(body),
-          signal: controller.signal,
-          credentials: this.manualCookies ? 'omit' : 'include',
-          cache: 'no-store',
-        });
+        try {
+          res = await send();
+        } catch (e) {
+          // Once more at once: Node's fetch may reuse a kept-alive connection the server has just
+          // closed ("other side closed"), which a browser retries by itself. Every call here may
+          // be repeated: documents are immutable (a repeat is "already there").
+          if (controller.signal.aborted) throw e;
+          res = await send();
+        }
       } catch (e) {
         if (controller.signal.aborted) throw new CouchError('timeout', `${where}: no answer within ${Math.round(timeout / 1000)} s`);
         throw new CouchError('offline', `${where}: the server cannot be reached (${e instanceof Error ? e.message : String(e)})`);
