@@ -1,6 +1,6 @@
 // Three laptops (three Chromium profiles) on one ship server (PouchDB Server on a free loopback
 // port, started and stopped here). A creates the cruise, B and C join it. A save on each laptop
-// appears on the two others. Then the same observation is edited on A and on B while B's network
+// appears on the two others, the bridge's with a photo that arrives byte for byte. Then the same observation is edited on A and on B while B's network
 // is cut (Chromium's offline emulation): when B is back, the conflict is shown on both laptops
 // (Exchange: "Flagged for review") and both versions are kept: each laptop's own edit as the
 // current revision, the other's as a conflict copy, revision 1 in the history.
@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { storeCounts } from './harness/idbCounts';
 import { createCruise, logObservation } from './harness/logFlow';
 import { showScreen } from './harness/screens';
-import { badge, openCruiseDatabase, openLaptop, policyErrors, signIn, startShipRig, USERS, type Laptop, type ShipRig } from './harness/shipRig';
+import { badge, openCruiseDatabase, openLaptop, policyErrors, signIn, startShipRig, storedPhotos, USERS, type Laptop, type ShipRig } from './harness/shipRig';
 import { DEFAULT_DB_NAME } from '../../src/db/database';
 
 const CRUISE = { name: 'Three laptop trial', vessel: 'RV Frostwren', observers: [{ name: 'Ines Tarvo', initials: 'IT' }] };
@@ -91,16 +91,27 @@ describe('three laptops on one ship server', { timeout: 300_000 }, () => {
       { on: 'b', time: '2026-03-10 07:00', position: '78 32.0 N 015 04.0 E', total: '7', notes: 'from the lab laptop' },
       { on: 'c', time: '2026-03-10 08:00', position: '78 33.0 N 015 06.0 E', total: '6', notes: 'from the chief scientist' },
     ] as const;
+    // An invented image: the JPEG start-of-image marker, then varied bytes (90 kB).
+    const image = Buffer.from(Uint8Array.from({ length: 90_000 }, (_, i) => (i < 4 ? [0xff, 0xd8, 0xff, 0xe0][i]! : (i * 37) & 0xff)));
     const seenMs: number[] = [];
     let count = 1;
     for (const s of saves) {
       const from = laptops[s.on];
       await showScreen(from.page, 'Watch log');
+      if (s.on === 'a') {
+        await from.page.locator('#f-photos').setInputFiles({ name: 'floe-edge.jpg', mimeType: 'image/jpeg', buffer: image });
+        await from.page.getByRole('img', { name: 'floe-edge.jpg' }).waitFor({ timeout: 30_000 });
+      }
       await logObservation(from.page, s);
       count++;
       const t0 = Date.now();
       await allHaveRows(Object.values(laptops).filter((l) => l !== from), count, 15_000);
       seenMs.push(Date.now() - t0);
+    }
+    // The bridge's photo on the two others, byte for byte.
+    for (const l of [b, c]) {
+      await expect.poll(async () => (await storedPhotos(l.page)).length, { timeout: 30_000, interval: 100 }).toBe(1);
+      expect(await storedPhotos(l.page)).toEqual([{ fileName: 'floe-edge.jpg', mimeType: 'image/jpeg', base64: image.toString('base64') }]);
     }
 
     // Apart: B's network is cut; B and A edit the first entry (revision 1) each their own way.

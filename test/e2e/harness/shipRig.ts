@@ -7,6 +7,7 @@ import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:f
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Page } from 'playwright-core';
+import { DEFAULT_DB_NAME } from '../../../src/db/database';
 import { withShipServers } from '../../../src/app/csp.config';
 import type { LogBundle } from '../../../src/format/types';
 import { CouchClient } from '../../../src/sync/couch';
@@ -130,3 +131,30 @@ export const badge = (page: Page) => page.getByTestId('sync-badge');
 
 /** Console lines of a blocked connection: the policy must let the app reach the server. */
 export const policyErrors = (errors: string[]) => errors.filter((e) => /Content Security Policy|Refused to connect/.test(e));
+
+/** The photos stored in the app's database: file name, type and the bytes as base64. */
+export function storedPhotos(page: Page): Promise<{ fileName: string; mimeType: string; base64: string }[]> {
+  return page.evaluate(async (name) => {
+    const rows = await new Promise<{ fileName: string; mimeType: string; blob: Blob }[]>((ok, fail) => {
+      const req = indexedDB.open(name);
+      req.onerror = () => fail(req.error);
+      req.onsuccess = () => {
+        const db = req.result;
+        const all = db.transaction('photos', 'readonly').objectStore('photos').getAll();
+        all.onsuccess = () => {
+          db.close();
+          ok(all.result as { fileName: string; mimeType: string; blob: Blob }[]);
+        };
+        all.onerror = () => fail(all.error);
+      };
+    });
+    const out: { fileName: string; mimeType: string; base64: string }[] = [];
+    for (const r of rows) {
+      const bytes = new Uint8Array(await r.blob.arrayBuffer());
+      let text = '';
+      for (let i = 0; i < bytes.length; i += 0x8000) text += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+      out.push({ fileName: r.fileName, mimeType: r.mimeType, base64: btoa(text) });
+    }
+    return out;
+  }, DEFAULT_DB_NAME);
+}
