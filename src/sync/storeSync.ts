@@ -122,7 +122,8 @@ export async function outbox(t: SyncTarget, lastTrackSend: Map<string, number> =
     docs.push(trackDoc(t.cruiseId, hour, points));
     lastTrackSend.set(hour, now);
   }
-  const photosHeld = new Set(marks.filter((m) => m.docId.startsWith('photo:')).map((m) => m.docId.split(':')[1]));
+  // `photo:<id>:<16 hex>-<16 hex>`; a photo id may itself hold ':'.
+  const photosHeld = new Set(marks.filter((m) => m.docId.startsWith('photo:')).map((m) => m.docId.slice(6, -34)));
   const saved = new Set(source.versions.flatMap((v) => v.photoIds));
   const photos = source.photos.filter((p) => !photosHeld.has(p.id) && saved.has(p.id));
   return { docs, photos, heldHours };

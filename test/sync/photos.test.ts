@@ -7,7 +7,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { attachPhoto, getPhoto, getSyncState, listPhotos, readCruiseExport, saveObservation, selectDatabase } from '../../src/db';
+import { applyMergePlan, attachPhoto, getPhoto, getSyncState, listPhotos, loadMergeTarget, readCruiseExport, saveObservation, selectDatabase } from '../../src/db';
 import { LIMITS } from '../../src/format/limits';
 import { CouchClient } from '../../src/sync/couch';
 import type { PhotoDoc } from '../../src/sync/documents';
@@ -15,7 +15,7 @@ import { pullBundle, pushBundle } from '../../src/sync/fileSync';
 import { cruiseDatabaseName, digest, digestBytes, PHOTO_ATTACHMENT, photoDocId } from '../../src/sync/ids';
 import { photoDoc, toBase64 } from '../../src/sync/photos';
 import { outbox, pullStore, pushStore, type SyncTarget } from '../../src/sync/storeSync';
-import { canonicalJson } from '../../src/format/merge';
+import { canonicalJson, planMerge } from '../../src/format/merge';
 import { startShipServer, type ShipServer } from '../../server/shipServer';
 import { freshDatabasePerTest, makeCruise, makeObservation } from '../db/helpers';
 
@@ -95,6 +95,21 @@ describe('photos as attachments', { timeout: 60_000 }, () => {
     } finally {
       back();
     }
+  });
+
+  it('a photo whose id holds ":" (the format allows it) is sent once', async () => {
+    const cruise = await makeCruise({ id: `cr-${crypto.randomUUID().slice(0, 8)}` });
+    const obs = (await saveObservation(makeObservation(cruise.id), { savedBy: 'obs-ak' })).observation;
+    const bytes = image(500, 6);
+    const meta = { id: 'cam:2026:0001', observationId: obs.id, fileName: 'c.jpg', mediaType: 'image/jpeg', byteLength: bytes.length, addedAt: '2026-02-10T06:05:00Z' };
+    // Stored as an import of an archive stores it, then named by a saved version.
+    const b = (await readCruiseExport(cruise.id)).bundle;
+    await applyMergePlan(planMerge(await loadMergeTarget(cruise.id), { ...b, photos: [meta] }), { source: 'x.zip', photos: new Map([[meta.id, bytes]]) });
+    const t = target(cruise.id, 'laptop-a');
+    await saveObservation({ ...obs, photoIds: [meta.id] }, { expectedRevision: 1, savedBy: 'obs-ak' });
+    expect((await outbox(t, new Map(), LATER)).photos.map((p) => p.id)).toEqual([meta.id]);
+    await pushStore(t, await outbox(t, new Map(), LATER));
+    expect((await outbox(t, new Map(), LATER)).photos).toEqual([]);
   });
 
   it('a photo of an entry still being typed waits until the entry is saved with it', async () => {
