@@ -3,7 +3,8 @@
 // its config and its log in one folder. `npm run ship-server` uses it, and so do the tests, which
 // need a real process they can SIGKILL and start again on the same folder and port.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync } from 'node:fs';
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { createServer } from 'node:net';
 import { dirname, join, resolve } from 'node:path';
@@ -58,10 +59,35 @@ function waitForExit(child: ChildProcess): Promise<void> {
   return new Promise((ok) => child.once('exit', () => ok()));
 }
 
+/**
+ * Puts a session secret in the folder's config.json when it has none. PouchDB Server otherwise
+ * makes a new one at every start, which signs every laptop out after a restart (CouchDB keeps
+ * its secret in its ini file, `[chttpd_auth] secret`). A config the server cannot have written
+ * (not JSON) is left alone.
+ */
+function keepSessionSecret(configFile: string): void {
+  let config: Record<string, unknown> = {};
+  if (existsSync(configFile)) {
+    try {
+      const parsed: unknown = JSON.parse(readFileSync(configFile, 'utf8'));
+      if (parsed === null || typeof parsed !== 'object' || Array.isArray(parsed)) return;
+      config = parsed as Record<string, unknown>;
+    } catch {
+      return;
+    }
+  }
+  const auth = config.couch_httpd_auth;
+  const section = auth !== null && typeof auth === 'object' && !Array.isArray(auth) ? (auth as Record<string, unknown>) : {};
+  if (typeof section.secret === 'string' && section.secret !== '') return;
+  config.couch_httpd_auth = { ...section, secret: randomBytes(16).toString('hex') };
+  writeFileSync(configFile, `${JSON.stringify(config, null, 2)}\n`);
+}
+
 async function startOnce(opts: ShipServerOptions, port: number): Promise<ShipServer> {
   const host = opts.host ?? '127.0.0.1';
   const dir = resolve(opts.dir);
   mkdirSync(dir, { recursive: true });
+  keepSessionSecret(join(dir, 'config.json'));
   const args = [pouchdbServerBin(), '--host', host, '--port', String(port), '--dir', dir, '--config', join(dir, 'config.json'), '--no-color'];
   if (opts.inMemory) args.push('--in-memory');
   // cwd is the folder: the server writes its log file (log.txt) relative to it.

@@ -47,7 +47,7 @@ export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, 
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';
 export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
-export { markOnServer, serverMarks, revisionsOnServer, getSyncState, putSyncState, forgetServer, readSyncSource, type SyncSource } from './syncMarks';
+export { markOnServer, heldOnServer, serverMarks, revisionsOnServer, getSyncState, putSyncState, forgetServer, readSyncSource, type SyncSource } from './syncMarks';
 export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';
 export { saveIceChart, saveIceGrid, listIceCharts, listIceGrids, listIceInfo, setIceInfoVisible, deleteIceInfo } from './iceProducts';
 export { exportLogPieces, type ExportStreamOptions } from './exportStream';

@@ -3,8 +3,10 @@
 // documents. The log itself is written only through applyMergePlan, as an import is.
 import { Dexie } from 'dexie';
 import type { Cruise, Observation } from '../domain/model';
+import type { PhotoMeta } from '../format/types';
 import { getDb, writableDb } from './connection';
 import { mapWriteError } from './errors';
+import { photoMetaOf } from './exportBundle';
 import type { SyncMark, SyncStateRow } from './rows';
 
 /** Marks documents as held by the server database `server`; marks already there are kept. */
@@ -16,6 +18,13 @@ export async function markOnServer(marks: readonly SyncMark[]): Promise<void> {
   } catch (err) {
     throw mapWriteError(err, 'the sync marks');
   }
+}
+
+/** Which of the given documents the server database `server` is marked as holding. */
+export async function heldOnServer(server: string, docIds: readonly string[]): Promise<Set<string>> {
+  if (docIds.length === 0) return new Set();
+  const rows = await getDb().syncMarks.bulkGet(docIds.map((id) => [server, id] as [string, string]));
+  return new Set(rows.flatMap((r) => (r ? [r.docId] : [])));
 }
 
 /** The marks of a cruise's documents in one server database. */
@@ -67,12 +76,14 @@ export interface SyncSource {
   versions: Observation[];
   /** Track points per UTC hour (`2026-03-04T05`). */
   trackHours: Map<string, number>;
+  /** Descriptions of the cruise's photos, as the log file writes them (the bytes stay in the store). */
+  photos: PhotoMeta[];
 }
 
 /** What a push needs to know, in one read transaction: no track rows, only their keys. */
 export async function readSyncSource(cruiseId: string): Promise<SyncSource> {
   const db = getDb();
-  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks], async () => {
+  return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = (await db.cruises.get(cruiseId)) ?? null;
     const current = await db.observations.where('cruiseId').equals(cruiseId).toArray();
     const ids = current.map((o) => o.id);
@@ -86,6 +97,8 @@ export async function readSyncSource(cruiseId: string): Promise<SyncSource> {
       .keys()) as unknown as [string, string, number][];
     const trackHours = new Map<string, number>();
     for (const [, hour, count] of keys) trackHours.set(hour.slice(0, 13), count);
-    return { cruise, versions: [...current, ...revisions.map((r) => r.observation), ...conflicts.map((c) => c.observation)], trackHours };
+    // A row's Blob is a handle: reading the rows does not read the images.
+    const photos = (await db.photos.where('cruiseId').equals(cruiseId).toArray()).map(photoMetaOf);
+    return { cruise, versions: [...current, ...revisions.map((r) => r.observation), ...conflicts.map((c) => c.observation)], trackHours, photos };
   });
 }

@@ -63,6 +63,19 @@ export function seqText(seq: unknown): string {
   return typeof seq === 'string' ? seq : JSON.stringify(seq ?? 0);
 }
 
+function statusError(msg: string, status: number): CouchError {
+  const kind: CouchErrorKind = status === 401 ? 'unauthorized' : status === 403 ? 'forbidden' : status === 404 ? 'not-found' : status === 409 ? 'conflict' : status === 413 ? 'too-large' : 'server';
+  return new CouchError(kind, msg, status);
+}
+
+function decodeText(bytes: Uint8Array, where: string, status: number): string {
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new CouchError('garbage', `${where}: the answer is not UTF-8 text`, status);
+  }
+}
+
 const isObject = (v: unknown): v is Record<string, unknown> => v !== null && typeof v === 'object' && !Array.isArray(v);
 
 export class CouchClient {
@@ -93,26 +106,28 @@ export class CouchClient {
     return `${this.base}${encodeURIComponent(db)}`;
   }
 
-  /** One request; the answer's JSON, or a CouchError. */
-  async request(method: string, path: string, body?: unknown, opts: { timeoutMs?: number; maxBytes?: number; okStatuses?: number[] } = {}): Promise<unknown> {
-    const headers: Record<string, string> = { accept: 'application/json' };
+  /** One exchange: the answer's status, headers and body (at most `maxBytes`), or a CouchError. */
+  private async exchange(method: string, path: string, body: unknown, accept: string, timeout: number, maxBytes: number): Promise<{ res: Response; bytes: Uint8Array; where: string }> {
+    const headers: Record<string, string> = { accept };
     if (body !== undefined) headers['content-type'] = 'application/json';
     if (this.manualCookies && this.cookie) headers.cookie = this.cookie;
-    const timeout = opts.timeoutMs ?? this.timeoutMs;
     const controller = new AbortController();
     const timer = setTimeout(() => controller.abort(), timeout);
     const where = `${method} ${path.split('?')[0]}`;
     try {
+      const text = body === undefined ? undefined : JSON.stringify(body);
+      const send = () => this.fetchFn(`${this.base}${path}`, { method, headers, body: text, signal: controller.signal, credentials: this.manualCookies ? 'omit' : 'include', cache: 'no-store' });
       let res: Response;
       try {
-        res = await this.fetchFn(`${this.base}${path}`, {
-          method,
-          headers,
-          body: body === undefined ? undefined : JSON.stringify(body),
-          signal: controller.signal,
-          credentials: this.manualCookies ? 'omit' : 'include',
-          cache: 'no-store',
-        });
+        try {
+          res = await send();
+        } catch (e) {
+          // Once more at once: Node's fetch may reuse a kept-alive connection the server has just
+          // closed ("other side closed"), which a browser retries by itself. Every call here may
+          // be repeated: documents are immutable (a repeat is "already there").
+          if (controller.signal.aborted) throw e;
+          res = await send();
+        }
       } catch (e) {
         if (controller.signal.aborted) throw new CouchError('timeout', `${where}: no answer within ${Math.round(timeout / 1000)} s`);
         throw new CouchError('offline', `${where}: the server cannot be reached (${e instanceof Error ? e.message : String(e)})`);
@@ -122,40 +137,51 @@ export class CouchClient {
         const m = set ? /AuthSession=[^;]*/.exec(set) : null;
         if (m) this.cookie = m[0];
       }
-      const text = await this.readText(res, opts.maxBytes ?? this.maxBytes, where, controller, timeout);
-      let data: unknown = null;
-      let parsed = true;
-      try {
-        data = text === '' ? null : JSON.parse(text);
-      } catch {
-        parsed = false;
-      }
-      const ok = res.ok || (opts.okStatuses?.includes(res.status) ?? false);
-      if (!ok) {
-        const reason = parsed && isObject(data) ? [data.error, data.reason].filter((x) => typeof x === 'string').join(': ') : text.slice(0, 120);
-        const msg = `${where}: HTTP ${res.status}${reason ? ` (${reason})` : ''}`;
-        if (res.status === 401) throw new CouchError('unauthorized', msg, 401);
-        if (res.status === 403) throw new CouchError('forbidden', msg, 403);
-        if (res.status === 404) throw new CouchError('not-found', msg, 404);
-        if (res.status === 409) throw new CouchError('conflict', msg, 409);
-        if (res.status === 413) throw new CouchError('too-large', msg, 413);
-        throw new CouchError('server', msg, res.status);
-      }
-      if (!parsed) throw new CouchError('garbage', `${where}: the answer is not JSON (${text.length} characters, starting ${JSON.stringify(text.slice(0, 40))})`, res.status);
-      return data;
+      return { res, bytes: await this.readBytes(res, maxBytes, where, controller, timeout), where };
     } finally {
       clearTimeout(timer);
     }
   }
 
-  /** The body as text, at most `max` bytes; a cut connection or a stall is an error, never a short body. */
-  private async readText(res: Response, max: number, where: string, controller: AbortController, timeout: number): Promise<string> {
+  /** One request; the answer's JSON, or a CouchError. */
+  async request(method: string, path: string, body?: unknown, opts: { timeoutMs?: number; maxBytes?: number; okStatuses?: number[] } = {}): Promise<unknown> {
+    const { res, bytes, where } = await this.exchange(method, path, body, 'application/json', opts.timeoutMs ?? this.timeoutMs, opts.maxBytes ?? this.maxBytes);
+    const text = decodeText(bytes, where, res.status);
+    let data: unknown = null;
+    let parsed = true;
+    try {
+      data = text === '' ? null : JSON.parse(text);
+    } catch {
+      parsed = false;
+    }
+    const ok = res.ok || (opts.okStatuses?.includes(res.status) ?? false);
+    if (!ok) {
+      const reason = parsed && isObject(data) ? [data.error, data.reason].filter((x) => typeof x === 'string').join(': ') : text.slice(0, 120);
+      throw statusError(`${where}: HTTP ${res.status}${reason ? ` (${reason})` : ''}`, res.status);
+    }
+    if (!parsed) throw new CouchError('garbage', `${where}: the answer is not JSON (${text.length} characters, starting ${JSON.stringify(text.slice(0, 40))})`, res.status);
+    return data;
+  }
+
+  /**
+   * An attachment's bytes (`GET /db/doc/name`), at most `maxBytes`, and the type the server
+   * gives; a larger one is a `too-large` error, read no further than the limit.
+   */
+  async attachment(db: string, docId: string, name: string, maxBytes: number): Promise<{ bytes: Uint8Array; contentType: string }> {
+    const path = `${encodeURIComponent(db)}/${encodeURIComponent(docId)}/${encodeURIComponent(name)}`;
+    const { res, bytes, where } = await this.exchange('GET', path, undefined, '*/*', this.timeoutMs, maxBytes);
+    if (!res.ok) throw statusError(`${where}: HTTP ${res.status}`, res.status);
+    return { bytes, contentType: (res.headers.get('content-type') ?? '').split(';')[0]?.trim().toLowerCase() ?? '' };
+  }
+
+  /** The body, at most `max` bytes; a cut connection or a stall is an error, never a short body. */
+  private async readBytes(res: Response, max: number, where: string, controller: AbortController, timeout: number): Promise<Uint8Array> {
     const declared = Number(res.headers.get('content-length'));
     if (Number.isFinite(declared) && declared > max) {
       controller.abort();
       throw new CouchError('too-large', `${where}: the answer has ${declared} bytes, more than the limit of ${max}`, res.status);
     }
-    if (!res.body) return '';
+    if (!res.body) return new Uint8Array(0);
     const reader = res.body.getReader();
     const chunks: Uint8Array[] = [];
     let size = 0;
@@ -181,11 +207,7 @@ export class CouchClient {
       all.set(c, at);
       at += c.byteLength;
     }
-    try {
-      return new TextDecoder('utf-8', { fatal: true }).decode(all);
-    } catch {
-      throw new CouchError('garbage', `${where}: the answer is not UTF-8 text`, res.status);
-    }
+    return all;
   }
 
   /** Logs in with a CouchDB session cookie. The password is used for this request only. */

@@ -6,18 +6,18 @@
 // a schema cannot make, the domain rules). A piece the reader rejects is refused on its own,
 // with the reader's reason, and the rest of the batch is read again without it.
 import type { Cruise, Observation, TrackPoint } from '../domain/model';
-import { encodeLog, encodeTrackPoint, encodeVersion } from '../format/encode';
+import { encodeLog, encodeTrackPoint, encodeVersion, photoArchivePath } from '../format/encode';
 import { bundleTarget, canonicalJson, planMerge } from '../format/merge';
 import { OLDEST_VERSION } from '../format/migrate';
 import type { Problem } from '../format/problems';
 import { formatProblem } from '../format/problems';
 import { readLogText, type RuleCheck } from '../format/read';
 import { scanText } from '../format/scan';
-import { CURRENT_VERSION, TRACK_COLUMNS, type FileCruise, type FileObservationVersion, type FileVessel, type LogBundle, type TrackRow } from '../format/types';
+import { CURRENT_VERSION, TRACK_COLUMNS, type FileCruise, type FileObservationVersion, type FileVessel, type LogBundle, type PhotoMeta, type TrackRow } from '../format/types';
 import type { Observer } from '../domain/model';
-import { cruiseDocId, digest, observationDocId, trackDocId, utcHour } from './ids';
+import { cruiseDocId, digest, observationDocId, photoDocId, trackDocId, utcHour } from './ids';
 
-export const DOC_TYPES = ['floe-ledger/observation', 'floe-ledger/cruise', 'floe-ledger/track'] as const;
+export const DOC_TYPES = ['floe-ledger/observation', 'floe-ledger/cruise', 'floe-ledger/track', 'floe-ledger/photo'] as const;
 export type DocType = (typeof DOC_TYPES)[number];
 
 interface Envelope<T extends DocType, B> {
@@ -44,7 +44,17 @@ export interface TrackBody {
 export type ObservationDoc = Envelope<'floe-ledger/observation', FileObservationVersion>;
 export type CruiseDoc = Envelope<'floe-ledger/cruise', CruiseBody>;
 export type TrackDoc = Envelope<'floe-ledger/track', TrackBody>;
-export type SyncDoc = ObservationDoc | CruiseDoc | TrackDoc;
+/** An attachment as written (`data`, base64) or as read from the changes feed (a stub). */
+export interface Attachment {
+  content_type: string;
+  data?: string;
+  length?: number;
+  stub?: boolean;
+  digest?: string;
+}
+/** A photo: its description (the log file's photo entry without archivePath), the image attached. */
+export type PhotoDoc = Envelope<'floe-ledger/photo', PhotoMeta> & { _attachments?: Record<string, Attachment> };
+export type SyncDoc = ObservationDoc | CruiseDoc | TrackDoc | PhotoDoc;
 
 // ---------------------------------------------------------------- writing
 
@@ -90,6 +100,23 @@ export function bundleDocs(bundle: LogBundle): SyncDoc[] {
   return docs;
 }
 
+/**
+ * A pulled batch with versions the server is known to hold of the same observations added as
+ * history. A batch alone lacks the revisions its newer ones build on, and the merge rules read
+ * descent from what a log holds (src/format/merge.ts): without them, an edit made on another
+ * laptop would look like a conflict with the revision it replaced. With them, the batch is
+ * judged as an import of the server's whole log would be. Versions already there merge as
+ * identical.
+ */
+export function withHeldVersions(bundle: LogBundle, held: readonly Observation[]): LogBundle {
+  return held.length === 0 ? bundle : { ...bundle, history: [...bundle.history, ...held] };
+}
+
+/** The ids of the observations a bundle holds versions of. */
+export function observationIdsOf(bundle: LogBundle): Set<string> {
+  return new Set([...bundle.observations, ...bundle.history, ...bundle.conflicts].map((o) => o.id));
+}
+
 // ---------------------------------------------------------------- checking pulled documents
 
 export interface Refusal {
@@ -102,6 +129,8 @@ export interface CheckContext {
   /** The cruise as stored on this laptop (null on a laptop that joins). */
   storedCruise: Cruise | null;
   rules?: RuleCheck | null;
+  /** An observation stored on this laptop (or read before), for the photos that belong to it. */
+  observation?: (id: string) => Observation | undefined;
 }
 
 export interface CheckResult {
@@ -111,6 +140,13 @@ export interface CheckResult {
   refused: Refusal[];
   /** Documents that are not ours (design documents, deletions): passed over. */
   ignored: string[];
+  /**
+   * Photo documents whose description passed the reader and whose observation is known; not yet
+   * in `accepted`: their image must still be fetched and checked (photos.ts).
+   */
+  photos: { doc: PhotoDoc; meta: PhotoMeta }[];
+  /** The cruise as known after the batch. */
+  cruise: Cruise | null;
 }
 
 const hasOwn = (o: object, k: string) => Object.prototype.hasOwnProperty.call(o, k);
@@ -154,6 +190,10 @@ function checkEnvelope(raw: unknown, cruiseId: string): { doc: SyncDoc } | { ref
     const c = body.cruise;
     if (!isObject(c) || typeof c.updatedAt !== 'string') return refuse('the body has no cruise record');
     expected = cruiseDocId(c.updatedAt, hash);
+  } else if (type === 'floe-ledger/photo') {
+    if (typeof body.id !== 'string') return refuse('the body has no photo id');
+    // The digest of the image ends the id; the image itself is checked against it when fetched.
+    expected = photoDocId(body.id, hash, /-([0-9a-f]{16})$/.exec(id)?.[1] ?? '?');
   } else {
     if (typeof body.hour !== 'string' || !Array.isArray(body.points)) return refuse('the body has no hour and points');
     expected = trackDocId(body.hour, hash);
@@ -290,9 +330,10 @@ export function checkPulled(raw: readonly unknown[], ctx: CheckContext): CheckRe
 
   const obs = docs.filter((d): d is ObservationDoc => d.type === 'floe-ledger/observation');
   const track = docs.filter((d): d is TrackDoc => d.type === 'floe-ledger/track');
+  const photoDocs = docs.filter((d): d is PhotoDoc => d.type === 'floe-ledger/photo');
   if (!cruise) {
-    for (const d of [...obs, ...track]) refused.push({ docId: d._id, reason: 'no valid cruise record of this cruise is on the server or on this laptop yet' });
-    return { bundle: null, accepted, refused, ignored };
+    for (const d of [...obs, ...track, ...photoDocs]) refused.push({ docId: d._id, reason: 'no valid cruise record of this cruise is on the server or on this laptop yet' });
+    return { bundle: null, accepted, refused, ignored, photos: [], cruise };
   }
 
   const bundle: LogBundle = { cruise, observations: [], history: [], conflicts: [], track: [], photos: [] };
@@ -335,8 +376,53 @@ export function checkPulled(raw: readonly unknown[], ctx: CheckContext): CheckRe
       t = t.filter((d) => !bad.has(d._id));
     }
   }
+  const photos = checkPhotoDescriptions(photoDocs, cruise, bundle.observations, ctx.observation, refused);
   const any = bundle.observations.length + bundle.history.length + bundle.conflicts.length + bundle.track.length > 0 || cruiseChanged;
-  return { bundle: any ? bundle : null, accepted, refused, ignored };
+  return { bundle: any ? bundle : null, accepted, refused, ignored, photos, cruise };
+}
+
+/**
+ * Photo descriptions, read as the photo list of a log file that holds the observations they
+ * belong to (from this batch or this laptop's log): the schema's limits (media type, size),
+ * the times and the reference checks of an imported file. A photo whose observation is in
+ * neither is refused.
+ */
+function checkPhotoDescriptions(docs: PhotoDoc[], cruise: Cruise, batch: Observation[], stored: CheckContext['observation'], refused: Refusal[]): { doc: PhotoDoc; meta: PhotoMeta }[] {
+  if (docs.length === 0) return [];
+  const inBatch = new Map(batch.map((o) => [o.id, o]));
+  const owners = new Map<string, Observation>();
+  let list = docs.filter((d) => {
+    const oid = d.body.observationId;
+    const o = typeof oid === 'string' ? (inBatch.get(oid) ?? stored?.(oid)) : undefined;
+    if (o) owners.set(o.id, o);
+    else refused.push({ docId: d._id, reason: `belongs to observation ${typeof oid === 'string' ? show(oid) : '(none)'}, which is not in this laptop's log` });
+    return o !== undefined;
+  });
+  // Each round refuses at least one document or ends, so this stops.
+  while (list.length > 0) {
+    const used = new Set(list.map((d) => d.body.observationId));
+    const observations = [...owners.values()].filter((o) => used.has(o.id)).map((o) => encodeVersion(o));
+    const photos = list.map((d) => ({ ...d.body, archivePath: photoArchivePath(d.body) }));
+    const r = readLogText(JSON.stringify({ ...header(CURRENT_VERSION, cruise), observations, track: { columns: [...TRACK_COLUMNS], points: [] }, photos }), { rules: null });
+    if (r.ok) return list.map((doc, i) => ({ doc, meta: r.bundle.photos[i] as PhotoMeta }));
+    const bad = new Map<number, string[]>();
+    for (const p of r.problems.listed) {
+      const m = /^\$\.photos\[(\d+)\]/.exec(p.path);
+      const i = m ? Number(m[1]) : -1;
+      const l = bad.get(i);
+      const text = formatProblem(p).replace(/\$\.photos\[\d+\]/g, 'the photo');
+      if (l) l.push(text);
+      else bad.set(i, [text]);
+    }
+    const whole = bad.get(-1);
+    if (whole) {
+      for (const d of list) refused.push({ docId: d._id, reason: `the photo cannot be read with its observation: ${whole.join('; ')}` });
+      return [];
+    }
+    for (const [i, reasons] of bad) refused.push({ docId: (list[i] as PhotoDoc)._id, reason: reasons.join('; ') });
+    list = list.filter((_, i) => !bad.has(i));
+  }
+  return [];
 }
 
 /** Only to give a lone cruise record the fields a file needs around it; all are replaced by the record. */

@@ -4,14 +4,14 @@
 // carry them over when the server can be reached. The status is what the header shows.
 import { cruiseChangeStamp, getSyncState, type SyncRefusal } from '../db';
 import { CouchError, type CouchClient } from './couch';
-import { outbox, pullStore, pushStore, targetDb, targetKey, type SyncTarget } from './storeSync';
+import { outbox, outboxSize, pullStore, pushStore, targetDb, targetKey, type SyncTarget } from './storeSync';
 import { backoffDelay } from './transfer';
 
 export type SyncPhase = 'connecting' | 'synced' | 'sending' | 'receiving' | 'offline' | 'refused' | 'stopped';
 
 export interface SyncStatus {
   phase: SyncPhase;
-  /** Documents of this laptop the server does not hold yet (observation versions, track hours, cruise record). */
+  /** Documents of this laptop the server does not hold yet (observation versions, track hours, cruise record, photos). */
   waiting: number;
   /** Since when the server could not be reached (or refused), while it lasts. */
   troubleSince: string | null;
@@ -151,8 +151,8 @@ export class SyncEngine {
         const stamp = await cruiseChangeStamp(this.opts.cruiseId);
         if (stamp !== this.lastStamp || this.current.waiting > 0) {
           const box = await outbox(this.opts, this.trackSent);
-          this.set({ waiting: box.docs.length });
-          if (box.docs.length > 0) {
+          this.set({ waiting: outboxSize(box) });
+          if (outboxSize(box) > 0) {
             this.set({ phase: this.pullFailing ? this.current.phase : 'sending' });
             await pushStore(this.opts, box, (done, total) => this.set({ waiting: Math.max(0, total - done) }));
           }

@@ -26,10 +26,19 @@ export function cruiseDatabaseName(cruiseId: string): string {
  * (the server is trusted to store, never to be right: every pulled document is checked again).
  */
 export function digest(text: string): string {
-  let h1 = 0x9e3779b1 ^ text.length;
+  return digestUnits(text.length, (i) => text.charCodeAt(i));
+}
+
+/** The same digest over bytes (a photo's image), one byte per unit. */
+export function digestBytes(bytes: Uint8Array): string {
+  return digestUnits(bytes.length, (i) => bytes[i] as number);
+}
+
+function digestUnits(length: number, unit: (i: number) => number): string {
+  let h1 = 0x9e3779b1 ^ length;
   let h2 = 0x85ebca77;
-  for (let i = 0; i < text.length; i++) {
-    const c = text.charCodeAt(i);
+  for (let i = 0; i < length; i++) {
+    const c = unit(i);
     h1 = Math.imul(h1 ^ c, 0xcc9e2d51);
     h1 = (h1 << 15) | (h1 >>> 17);
     h2 = Math.imul(h2 + c, 0x1b873593);
@@ -56,7 +65,10 @@ const pad = (n: number) => String(n).padStart(6, '0');
 export const observationDocId = (observationId: string, revision: number, hash: string) => `obs:${observationId}:r${pad(revision)}:${hash}`;
 export const cruiseDocId = (updatedAt: string, hash: string) => `cruise:${updatedAt}:${hash}`;
 export const trackDocId = (hour: string, hash: string) => `track:${hour}:${hash}`;
-export const photoDocId = (photoId: string) => `photo:${photoId}`;
+/** A photo: the digest of its description, then of its image bytes (the attachment). */
+export const photoDocId = (photoId: string, metaHash: string, bytesHash: string) => `photo:${photoId}:${metaHash}-${bytesHash}`;
+/** The name of a photo document's one attachment: the image. */
+export const PHOTO_ATTACHMENT = 'image';
 
 /** The server-side checkpoint of one laptop's pull (a `_local` document: never replicated). */
 export const checkpointDocId = (deviceId: string) => `_local/floe-ledger-pull-${deviceId}`;

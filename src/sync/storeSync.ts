@@ -6,7 +6,9 @@
 import {
   applyMergePlan,
   forgetServer,
+  getPhoto,
   getSyncState,
+  heldOnServer,
   trackPointsOfHour,
   loadMergeTarget,
   markOnServer,
@@ -20,10 +22,12 @@ import {
 } from '../db';
 import type { Observation } from '../domain/model';
 import { planMerge, planIsEmpty, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
+import type { PhotoMeta } from '../format/types';
 import { CouchClient } from './couch';
-import { checkPulled, cruiseDoc, observationDoc, trackDoc, type Refusal, type SyncDoc } from './documents';
+import { checkPulled, cruiseDoc, observationDoc, observationIdsOf, trackDoc, withHeldVersions, type Refusal, type SyncDoc } from './documents';
 import { checkpointDocId, cruiseDatabaseName } from './ids';
-import { readPage, sendDocs } from './transfer';
+import { bundleWithPhotos, fetchPhotos, photoDoc } from './photos';
+import { PUSH_BATCH_BYTES, readPage, sendDocs, type SendResult } from './transfer';
 
 export interface SyncTarget {
   client: CouchClient;
@@ -42,6 +46,7 @@ const MAX_REFUSALS_KEPT = 200;
 function markOf(server: string, cruiseId: string, d: SyncDoc, at: string): SyncMark {
   if (d.type === 'floe-ledger/observation') return { server, docId: d._id, cruiseId, observationId: d.body.id, revision: d.body.revision, at };
   if (d.type === 'floe-ledger/track') return { server, docId: d._id, cruiseId, observationId: '', revision: d.body.points.length, at };
+  // A photo names no observation here: the list's marks read observation documents only.
   return { server, docId: d._id, cruiseId, observationId: '', revision: 0, at };
 }
 
@@ -52,12 +57,31 @@ const versionKey = (o: Observation) => `${o.cruiseId}\u0000${o.id}\u0000${o.revi
 
 export interface Outbox {
   docs: SyncDoc[];
+  /**
+   * Photos the server does not hold yet, saved with an observation (a photo of an entry still
+   * being typed waits for its save). Their documents are made at sending time, a few
+   * megabytes at a time, not all in memory at once.
+   */
+  photos: PhotoMeta[];
   /** Hours whose points are waiting but held back until the hour ends (see TRACK_HOLD_MS). */
   heldHours: number;
 }
 
 /** Track of the running hour is sent at most this often; a finished hour at once. */
 export const TRACK_HOLD_MS = 10 * 60 * 1000;
+
+/** The stored versions of the batch's observations that the server holds (see withHeldVersions). */
+async function storedOnServer(t: SyncTarget, target: MergeTarget, ids: Set<string>): Promise<Observation[]> {
+  const stored = [...ids].flatMap((id) => {
+    const v = target.versions(id);
+    return v ? [v.current, ...v.others] : [];
+  });
+  if (stored.length === 0) return [];
+  // Conflict copies may share a version key with other content: their ids are computed afresh.
+  const docIds = stored.map((v) => observationDoc(v)._id);
+  const held = await heldOnServer(targetKey(t), docIds);
+  return stored.filter((_, i) => held.has(docIds[i] as string));
+}
 
 /** What the server does not hold yet: cruise record, saved versions (oldest first), track hours. */
 export async function outbox(t: SyncTarget, lastTrackSend: Map<string, number> = new Map(), now = Date.now()): Promise<Outbox> {
@@ -98,8 +122,15 @@ export async function outbox(t: SyncTarget, lastTrackSend: Map<string, number> =
     docs.push(trackDoc(t.cruiseId, hour, points));
     lastTrackSend.set(hour, now);
   }
-  return { docs, heldHours };
+  // `photo:<id>:<16 hex>-<16 hex>`; a photo id may itself hold ':'.
+  const photosHeld = new Set(marks.filter((m) => m.docId.startsWith('photo:')).map((m) => m.docId.slice(6, -34)));
+  const saved = new Set(source.versions.flatMap((v) => v.photoIds));
+  const photos = source.photos.filter((p) => !photosHeld.has(p.id) && saved.has(p.id));
+  return { docs, photos, heldHours };
 }
+
+/** Documents waiting in an outbox (photos included). */
+export const outboxSize = (box: Outbox) => box.docs.length + box.photos.length;
 
 export interface PushResult {
   sent: number;
@@ -110,21 +141,49 @@ export interface PushResult {
 export async function pushStore(t: SyncTarget, box?: Outbox, onProgress?: (done: number, total: number) => void): Promise<PushResult> {
   const db = targetDb(t);
   const key = targetKey(t);
-  const { docs } = box ?? (await outbox(t));
-  if (docs.length === 0) return { sent: 0, rejected: [] };
+  const { docs, photos } = box ?? (await outbox(t));
+  const total = docs.length + photos.length;
+  if (total === 0) return { sent: 0, rejected: [] };
   await t.client.ensureDatabase(db);
-  const byId = new Map(docs.map((d) => [d._id, d]));
   let done = 0;
-  const r = await sendDocs(t.client, db, docs, async (batch) => {
-    const at = nowIso();
-    await markOnServer(batch.onServer.flatMap((id) => {
-      const d = byId.get(id);
-      return d ? [markOf(key, t.cruiseId, d, at)] : [];
-    }));
-    done += batch.onServer.length + batch.rejected.length;
-    onProgress?.(done, docs.length);
-  });
-  return { sent: r.onServer.length, rejected: r.rejected };
+  const send = async (list: SyncDoc[]): Promise<SendResult> => {
+    const byId = new Map(list.map((d) => [d._id, d]));
+    return sendDocs(t.client, db, list, async (batch) => {
+      const at = nowIso();
+      await markOnServer(batch.onServer.flatMap((id) => {
+        const d = byId.get(id);
+        return d ? [markOf(key, t.cruiseId, d, at)] : [];
+      }));
+      done += batch.onServer.length + batch.rejected.length;
+      onProgress?.(done, total);
+    });
+  };
+  const r = await send(docs);
+  const out = { sent: r.onServer.length, rejected: r.rejected };
+  // Photos after the observations they belong to, a batch's worth of bytes in memory at a time.
+  let group: SyncDoc[] = [];
+  let bytes = 0;
+  const flush = async () => {
+    const g = await send(group);
+    out.sent += g.onServer.length;
+    out.rejected.push(...g.rejected);
+    group = [];
+    bytes = 0;
+  };
+  for (const p of photos) {
+    const row = await getPhoto(p.id);
+    // Removed since the outbox was made: nothing to send.
+    if (!row) {
+      done++;
+      continue;
+    }
+    const data = new Uint8Array(await row.blob.arrayBuffer());
+    if (group.length > 0 && bytes + data.length > PUSH_BATCH_BYTES) await flush();
+    group.push(photoDoc(t.cruiseId, p, data));
+    bytes += data.length;
+  }
+  if (group.length > 0) await flush();
+  return out;
 }
 
 export interface PullResult {
@@ -243,16 +302,21 @@ interface Merged {
 async function mergePulled(t: SyncTarget, raw: unknown[], known: MergeTarget | null): Promise<Merged> {
   let target = known ?? (await loadMergeTarget(t.cruiseId));
   for (let attempt = 0; ; attempt++) {
-    const checked = checkPulled(raw, { cruiseId: t.cruiseId, storedCruise: target.cruise });
-    const acceptedIds = new Set(checked.accepted);
+    const stored = target;
+    const checked = checkPulled(raw, { cruiseId: t.cruiseId, storedCruise: target.cruise, observation: (id) => stored.versions(id)?.current });
+    const photos = await fetchPhotos(t.client, targetDb(t), checked.photos, (id) => stored.hasPhoto(id));
+    const acceptedIds = new Set([...checked.accepted, ...photos.accepted]);
     const accepted = (raw as SyncDoc[]).filter((d) => d && typeof d === 'object' && acceptedIds.has(d._id));
-    const none = { accepted, refused: checked.refused, changed: 0, conflicts: 0, target };
-    if (!checked.bundle) return none;
-    const plan = planMerge(target, checked.bundle);
+    const refused = [...checked.refused, ...photos.refused];
+    const none = { accepted, refused, changed: 0, conflicts: 0, target };
+    const pulled = bundleWithPhotos(checked, photos);
+    if (!pulled) return none;
+    const bundle = withHeldVersions(pulled, await storedOnServer(t, target, observationIdsOf(pulled)));
+    const plan = planMerge(target, bundle);
     const c = plan.counts;
     if (planIsEmpty(plan)) return none;
     try {
-      await applyMergePlan(plan, { source: `ship server ${targetKey(t)}` });
+      await applyMergePlan(plan, { source: `ship server ${targetKey(t)}`, photos: photos.bytes });
     } catch (e) {
       if (e instanceof StaleImportError && attempt < 5) {
         target = await loadMergeTarget(t.cruiseId);
@@ -260,6 +324,6 @@ async function mergePulled(t: SyncTarget, raw: unknown[], known: MergeTarget | n
       }
       throw e;
     }
-    return { accepted, refused: checked.refused, changed: c.new + c.newer + c.older + c.conflict, conflicts: c.conflict, target: afterPlan(target, plan) };
+    return { accepted, refused, changed: c.new + c.newer + c.older + c.conflict, conflicts: c.conflict, target: afterPlan(target, plan) };
   }
 }

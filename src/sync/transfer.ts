@@ -23,7 +23,7 @@ function batches(docs: readonly SyncDoc[]): SyncDoc[][] {
   let cur: SyncDoc[] = [];
   let bytes = 0;
   for (const d of docs) {
-    const size = JSON.stringify(d.body).length;
+    const size = JSON.stringify(d.body).length + ('_attachments' in d && d._attachments ? Object.values(d._attachments).reduce((n, a) => n + (a.data?.length ?? 0), 0) : 0);
     if (cur.length > 0 && (cur.length >= PUSH_BATCH_DOCS || bytes + size > PUSH_BATCH_BYTES)) {
       out.push(cur);
       cur = [];

@@ -1,13 +1,15 @@
 // `push` and `pull` against embedded ship servers (PouchDB Server on free loopback ports,
 // started and stopped here), and ship-to-shore with CouchDB's own `_replicate`, including a run
 // cut by a SIGKILL of the shore server: the shore copy pulled to a file equals the ship's log.
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { CliIO } from '../../src/cli/command.ts';
 import { runCli } from '../../src/cli/main.ts';
 import { pullCommandFor, pushCommandFor } from '../../src/cli/commands/sync.ts';
+import { writeArchive } from '../../src/format/archive.ts';
+import { readArchive } from '../../src/format/archiveRead.ts';
 import { canonicalJson } from '../../src/format/merge.ts';
 import { readLogText } from '../../src/format/read.ts';
 import type { LogBundle } from '../../src/format/types.ts';
@@ -79,6 +81,50 @@ describe('push and pull', { timeout: 120_000 }, () => {
     const none = await run('pull', '--server', ship.url, '--cruise', 'no-such-cruise', '-o', join(dir, 'y.json'));
     expect(none.code).toBe(1);
     expect(none.err.join('\n')).toMatch(/no readable log of cruise no-such-cruise/);
+  });
+
+  it('a zip archive pushed carries its photos; pulled to .zip they come back byte for byte, to .json as descriptions', async () => {
+    const demo = read(demoFile);
+    // Our own cruise under another id, so this database holds only this test's documents.
+    const cruise = { ...demo.cruise, id: `${demo.cruise.id}-photos` };
+    const observations = demo.observations.slice(0, 3).map((o, i) => ({ ...o, cruiseId: cruise.id, photoIds: i === 0 ? ['ph-1', 'ph-2'] : [] }));
+    const first = observations[0]!;
+    const image = (n: number, seed: number) => Uint8Array.from({ length: n }, (_, i) => (i < 2 ? [0xff, 0xd8][i]! : (i * seed) & 0xff));
+    const bytes = new Map([['ph-1', image(70_000, 7)], ['ph-2', image(1234, 11)]]);
+    const photos = [...bytes].map(([id, b]) => ({ id, observationId: first.id, fileName: `${id}.jpg`, mediaType: 'image/jpeg', byteLength: b.length, addedAt: '2026-03-10T06:05:00Z' }));
+    const bundle: LogBundle = { cruise, observations, history: [], conflicts: [], track: [], photos };
+    const zip = join(dir, 'with-photos.zip');
+    writeFileSync(zip, writeArchive(bundle, bytes));
+    const pushed = await run('push', zip, '--server', ship.url);
+    expect(pushed.err).toEqual([]);
+    // 1 cruise record + 3 observations + 2 photos.
+    expect(pushed.out[0]).toContain('6 of 6 documents are on the server');
+    const outZip = join(dir, 'pulled-photos.zip');
+    const pulled = await run('pull', '--server', ship.url, '--cruise', cruise.id, '-o', outZip);
+    expect(pulled.err).toEqual([]);
+    expect(pulled.out[0]).toContain('2 photos');
+    const back = readArchive(new Uint8Array(readFileSync(outZip)));
+    if (!back.ok) throw new Error(JSON.stringify(back.problems));
+    expect(back.photos).toEqual(bytes);
+    expect(back.bundle.photos.map(canonicalJson).sort()).toEqual(photos.map(canonicalJson).sort());
+    const outJson = join(dir, 'pulled-photos.json');
+    expect((await run('pull', '--server', ship.url, '--cruise', cruise.id, '-o', outJson)).code).toBe(0);
+    expect(read(outJson).photos.map((p) => p.id).sort()).toEqual(['ph-1', 'ph-2']);
+  });
+
+  it('a session outlives a SIGKILL and restart of the ship server: the session secret is kept in its folder', async () => {
+    let s = await startShipServer({ dir: join(dir, 'restarted') });
+    try {
+      await addAccounts(s.url, { name: 'admin', password: 'ice-admin' }, [{ name: 'lab', password: 'lab-pw' }]);
+      const lab = new CouchClient({ url: s.url, cookies: 'manual' });
+      await lab.logIn('lab', 'lab-pw');
+      expect(await lab.sessionUser()).toBe('lab');
+      await s.kill();
+      s = await startShipServer({ dir: join(dir, 'restarted'), port: s.port });
+      expect(await lab.sessionUser()).toBe('lab');
+    } finally {
+      await s.stop();
+    }
   });
 
   it('logs in with a session when the server has accounts; the password comes from the environment only', async () => {

@@ -1,6 +1,9 @@
 // A misbehaving server in front of the real one, on a free loopback port: it forwards requests
 // to the embedded ship server unless told to answer 401, 403, 409, 500, garbage, a truncated
-// body, 50 MB, or nothing at all (hang). Test-only.
+// body, 50 MB, or nothing at all (hang). Test-only. Faults carry the CORS headers a browser
+// needs to read them (a page on another origin would otherwise see only "network error"), and a
+// browser's preflight (OPTIONS) always goes through, as a captive portal or a failing CouchDB
+// behind a working front would answer.
 import { createServer, request as httpRequest, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 
@@ -13,13 +16,17 @@ export interface FaultyProxy {
   only: RegExp | null;
   /** Requests seen while a fault was on. */
   faulted: number;
+  /** Every request forwarded or faulted, as `METHOD /path?query`, oldest first. */
+  seen: string[];
+  /** Cuts the connections held by `hang` (a link that comes back resets them). */
+  releaseHanging(): void;
   close(): Promise<void>;
 }
 
 export async function startFaultyProxy(target: string): Promise<FaultyProxy> {
   const t = new URL(target);
   const hanging = new Set<ServerResponse>();
-  const proxy: FaultyProxy = { url: '', fault: 'none', only: null, faulted: 0, close: async () => undefined };
+  const proxy: FaultyProxy = { url: '', fault: 'none', only: null, faulted: 0, seen: [], releaseHanging: () => undefined, close: async () => undefined };
   const forward = (req: IncomingMessage, res: ServerResponse) => {
     const up = httpRequest({ host: t.hostname, port: t.port, method: req.method, path: req.url, headers: { ...req.headers, host: t.host } }, (r) => {
       res.writeHead(r.statusCode ?? 502, r.headers);
@@ -30,9 +37,15 @@ export async function startFaultyProxy(target: string): Promise<FaultyProxy> {
   };
   const server: Server = createServer((req, res) => {
     const f = proxy.fault;
-    if (f === 'none' || (proxy.only && !proxy.only.test(req.url ?? ''))) return forward(req, res);
+    if (req.method !== 'OPTIONS') proxy.seen.push(`${req.method} ${req.url}`);
+    if (f === 'none' || req.method === 'OPTIONS' || (proxy.only && !proxy.only.test(req.url ?? ''))) return forward(req, res);
     proxy.faulted++;
     req.resume();
+    const origin = req.headers.origin;
+    if (origin) {
+      res.setHeader('access-control-allow-origin', origin);
+      res.setHeader('access-control-allow-credentials', 'true');
+    }
     const json = (status: number, body: unknown) => res.writeHead(status, { 'content-type': 'application/json' }).end(JSON.stringify(body));
     switch (f) {
       case '401':
@@ -75,6 +88,10 @@ export async function startFaultyProxy(target: string): Promise<FaultyProxy> {
   });
   await new Promise<void>((ok) => server.listen(0, '127.0.0.1', ok));
   proxy.url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/`;
+  proxy.releaseHanging = () => {
+    for (const r of hanging) r.destroy();
+    hanging.clear();
+  };
   proxy.close = () =>
     new Promise<void>((ok) => {
       for (const r of hanging) r.destroy();

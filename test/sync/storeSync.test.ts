@@ -98,6 +98,29 @@ describe('store sync with the embedded ship server', () => {
     expect(both).toEqual(['A says ridges to the east', 'B says open water to the east']);
   });
 
+  it('an edit made on another laptop arrives as the newer revision, not as a conflict with the one it replaced', async () => {
+    const { cruiseId, obs } = await laptopWithLog(2);
+    const t = target(cruiseId);
+    await pushStore(t, await outbox(t, new Map(), Date.parse('2026-03-01T00:00:00Z')));
+    // Caught up: the next page holds only what comes after.
+    await pullStore(t);
+    // Laptop B edits obs[1] (revision 1, which the server holds) and sends only its revision 2.
+    const theirs: Observation = { ...obs[1]!, revision: 2, notes: 'B: the lead closed', savedAt: '2026-02-10T07:30:00Z', deviceId: 'laptop-b' };
+    const client = new CouchClient({ url: server.url });
+    await client.bulkDocs(cruiseDatabaseName(cruiseId), [observationDoc(theirs)]);
+    const r = await pullStore(t);
+    expect(r.refused).toEqual([]);
+    expect(r.conflicts).toBe(0);
+    const log = (await readCruiseExport(cruiseId)).bundle;
+    expect(log.observations.find((o) => o.id === obs[1]!.id)).toEqual(theirs);
+    expect(log.history.filter((o) => o.id === obs[1]!.id).map((o) => o.revision)).toEqual([1]);
+    expect(await listConflicts(cruiseId)).toEqual([]);
+    // A shore copy read page by page (pullBundle) judges it the same way.
+    const shore = (await pullBundle(client, cruiseId)).bundle!;
+    expect(shore.observations.find((o) => o.id === obs[1]!.id)?.notes).toBe('B: the lead closed');
+    expect(shore.conflicts).toEqual([]);
+  });
+
   it('a hostile or altered document on the server is refused with its reason and never reaches the log', async () => {
     const { cruiseId, obs } = await laptopWithLog(2);
     const t = target(cruiseId);

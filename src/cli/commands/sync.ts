@@ -1,13 +1,12 @@
 // `pull --server URL --cruise ID -o log.json` and `push FILE --server URL`: a cruise database on
 // a CouchDB server (the ship's, or a shore copy) to a log file and back, through the same
 // documents, checks and merge rules as the app's sync (src/sync).
-import { exportLogJson } from '../../format/encode.ts';
 import { CouchClient, CouchError } from '../../sync/couch.ts';
 import { pullBundle, pushBundle } from '../../sync/fileSync.ts';
 import { cruiseDatabaseName } from '../../sync/ids.ts';
 import { parseOptions, stringOption } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
-import { loadLog, printProblems, writeOut } from '../logFiles.ts';
+import { loadLog, printProblems, writeLog } from '../logFiles.ts';
 
 const PASSWORD_VARIABLE = 'FLOE_LEDGER_PASSWORD';
 
@@ -48,7 +47,8 @@ export function pullCommandFor(env: NodeJS.ProcessEnv = process.env): Command {
 
 Reads the cruise's database (floe-ledger-<cruise id>) and writes its log. Every document is
 checked as an imported file would be; a refused one is named with its reason, left out, and
-makes the exit code 1 (the log of the others is still written).
+makes the exit code 1 (the log of the others is still written). An OUT ending in .zip is an
+archive with the photos' images; a JSON log lists the photos without them.
 ${AUTH_HELP}`,
     async run(args, io) {
       const { values } = parseOptions(args, { server: { type: 'string' }, cruise: { type: 'string' }, out: { type: 'string', short: 'o' }, user: { type: 'string' } });
@@ -62,9 +62,9 @@ ${AUTH_HELP}`,
           io.stderr(`the server holds no readable log of cruise ${cruiseId} (database ${cruiseDatabaseName(cruiseId)}, ${r.documents} documents); nothing written`);
           return EXIT_FAILURE;
         }
-        writeOut(out, exportLogJson(r.bundle));
+        writeLog(out, r.bundle, r.photos);
         const b = r.bundle;
-        io.stdout(`wrote ${out}: ${b.observations.length} observations, ${b.history.length} earlier revisions, ${b.conflicts.length} conflicting copies, ${b.track.length} track points from ${r.documents} documents`);
+        io.stdout(`wrote ${out}: ${b.observations.length} observations, ${b.history.length} earlier revisions, ${b.conflicts.length} conflicting copies, ${b.track.length} track points, ${b.photos.length} photos from ${r.documents} documents`);
         return r.refused.length > 0 ? EXIT_FAILURE : EXIT_OK;
       } catch (e) {
         return serverFailure(io, e);
@@ -81,6 +81,7 @@ export function pushCommandFor(env: NodeJS.ProcessEnv = process.env): Command {
 
 Checks FILE as an import does, then sends the documents the server does not hold yet to the
 cruise's database (created when missing and allowed). Sending the same file again sends nothing.
+A zip archive also sends its photos, each with its image attached.
 ${AUTH_HELP}`,
     async run(args, io) {
       const { values, positionals } = parseOptions(args, { server: { type: 'string' }, user: { type: 'string' } }, true);
@@ -92,7 +93,7 @@ ${AUTH_HELP}`,
       }
       try {
         const client = await connect(values, env);
-        const r = await pushBundle(client, log.bundle);
+        const r = await pushBundle(client, log.bundle, undefined, log.photos);
         for (const x of r.rejected) io.stderr(`the server refused ${x.docId}: ${x.reason}`);
         io.stdout(`${log.file}: ${r.onServer.length} of ${r.total} documents are on the server (database ${cruiseDatabaseName(log.bundle.cruise.id)})`);
         return r.rejected.length > 0 ? EXIT_FAILURE : EXIT_OK;

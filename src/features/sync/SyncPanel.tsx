@@ -52,7 +52,7 @@ export function SyncPanel() {
     <section className="panel" aria-labelledby="sync-title">
       <h3 id="sync-title">Ship server</h3>
       <p>
-        With a ship server (Apache CouchDB, or <code>npm run ship-server</code> on one laptop), every saved observation, the cruise and the track go to the
+        With a ship server (Apache CouchDB, or <code>npm run ship-server</code> on one laptop), every saved observation, the cruise, the track and the photos go to the
         server and come to the other laptops. Without it, or offline, this laptop logs exactly as before and sends later.
       </p>
       {policyOrigins() === null ? null : allowed.length === 0 ? (
