@@ -88,7 +88,10 @@ async function startOnce(opts: ShipServerOptions, port: number): Promise<ShipSer
   const dir = resolve(opts.dir);
   mkdirSync(dir, { recursive: true });
   keepSessionSecret(join(dir, 'config.json'));
-  const args = [pouchdbServerBin(), '--host', host, '--port', String(port), '--dir', dir, '--config', join(dir, 'config.json'), '--no-color'];
+  // PouchDB Server leaves a promise unhandled when a _replicate target dies mid-run (the shore
+  // link cut): Node's default would end the whole ship server for it, so such a rejection is
+  // logged instead; the replication itself reports its failure to whoever asked for it.
+  const args = ['--unhandled-rejections=warn', pouchdbServerBin(), '--host', host, '--port', String(port), '--dir', dir, '--config', join(dir, 'config.json'), '--no-color'];
   if (opts.inMemory) args.push('--in-memory');
   // cwd is the folder: the server writes its log file (log.txt) relative to it.
   const child = spawn(process.execPath, args, { cwd: dir, stdio: ['ignore', 'pipe', 'pipe'] });

@@ -175,6 +175,8 @@ describe('ship to shore with CouchDB replication', { timeout: 300_000 }, () => {
       }
       await shore.kill();
       await running;
+      // The ship's own server outlives the cut link (PouchDB Server used to exit on it).
+      expect(ship.process.exitCode, 'the ship server is still running').toBeNull();
       shore = await startShipServer({ dir: shoreDir, port: shore.port });
       const before = (await new CouchClient({ url: shore.url }).request('GET', db)) as { doc_count: number };
       const shipInfo = (await shipClient.request('GET', db)) as { doc_count: number };
