@@ -18,7 +18,7 @@ import { emptyPlan, planCruiseOf, planObservations, planPhotos, planTrack } from
 import type { Observation, TrackPoint } from '../domain/model';
 import type { ProblemReport } from '../format/problems';
 import type { ReadWarning } from '../format/read';
-import type { LogCounts, LogPiece, LogVerdict } from '../format/readStream';
+import type { LogCounts, LogPiece, LogVerdict, OpenPiecesRoute } from '../format/readStream';
 import type { PhotoBytes } from '../format/types';
 import { getDb, writableDb } from './connection';
 import type { FloeDatabase } from './database';
@@ -37,8 +37,12 @@ export class ImportFileChangedError extends FloeDbError {
   }
 }
 
-/** Opens the file's pieces; `route` repeats the way the preview read it. */
-export type OpenPieces = (route?: 'pieces' | 'whole') => Generator<LogPiece, LogVerdict, void>;
+/**
+ * Opens the file's pieces. The apply passes the way the preview read it (`route`) and, for a
+ * file read in pieces, the hash of the text the preview checked: the schema and the rules are
+ * not run again, and the reading fails at its end if the text is not the same.
+ */
+export type OpenPieces = (route?: OpenPiecesRoute, checkedHash?: string) => Generator<LogPiece, LogVerdict, void>;
 
 /** What the preview shows, and what the apply needs to find the preview still true. */
 export interface ImportSummary {
@@ -49,7 +53,9 @@ export interface ImportSummary {
   totals: LogCounts;
   /** Photos listed but without bytes in the file (a plain JSON log). */
   photosWithoutBytes: number;
-  route: 'pieces' | 'whole';
+  route: OpenPiecesRoute;
+  /** Hash of the text the preview checked (a file read in pieces). */
+  textHash?: string;
 }
 
 export type ImportPreview = { ok: true; summary: ImportSummary; expected: Map<string, number | null> } | { ok: false; problems: ProblemReport };
@@ -165,6 +171,7 @@ export async function previewImport(open: OpenPieces, opts: { photos?: PhotoByte
         photosWithoutBytes: planner.photosWithoutBytes,
         route: v.route,
       };
+      if (v.textHash !== undefined) summary.textHash = v.textHash;
       return { ok: true, summary, expected: planner.expected };
     }
     const p = n.value;
@@ -197,7 +204,7 @@ export async function applyImport(open: OpenPieces, preview: ImportPreview & { o
     await db.transaction('rw', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
       const planner = new PiecePlanner(db, opts.photos);
       if (preview.summary.route === 'whole') planner.seen = new Set<string>();
-      const gen = open(preview.summary.route);
+      const gen = open(preview.summary.route, preview.summary.textHash);
       let planned = 0;
       let done = 0;
       for (;;) {

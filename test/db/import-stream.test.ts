@@ -20,7 +20,8 @@ const textOf = (b: LogBundle) => exportLogJson(b, { exportedAt: '2026-04-01T00:0
 
 /** Pieces of `text`, small, so that every list is cut several times. */
 function opener(text: () => string): OpenPieces {
-  return (route) => openLog({ pieces: () => stringSource(text(), 501), whole: () => ({ text: text(), byteLength: text().length }) }, { route, rules: null, observationBatch: 3, trackBatch: 7 });
+  return (route, checkedHash) =>
+    openLog({ pieces: () => stringSource(text(), 501), whole: () => ({ text: text(), byteLength: text().length }) }, { route, rules: null, observationBatch: 3, trackBatch: 7, ...(checkedHash === undefined ? {} : { checkedHash }) });
 }
 
 async function importInPieces(text: string) {
@@ -89,6 +90,13 @@ describe('import in pieces', { timeout: 300_000 }, () => {
     const broken = good.replace(/\]\n {4}\]\n {2}\},/, ', "x"]\n    ]\n  },');
     expect(broken).not.toBe(good);
     await expect(applyImport(opener(() => broken), preview, { source: 'changed.json' })).rejects.toBeInstanceOf(ImportFileChangedError);
+    expect(await storeContent()).toEqual(before);
+    // Still a valid log, of the same observations and revisions, but one note changed: the
+    // apply (which does not run the schema and rules again) sees another text and stops.
+    const other = good.replace('(edited)', '(edited again)');
+    expect(other).not.toBe(good);
+    expect(readLogText(other, { rules: null }).ok).toBe(true);
+    await expect(applyImport(opener(() => other), preview, { source: 'other.json' })).rejects.toBeInstanceOf(ImportFileChangedError);
     expect(await storeContent()).toEqual(before);
     // Truncated half-way through the observations.
     const cut = good.slice(0, Math.floor(good.indexOf('"track"') / 2));

@@ -3,11 +3,11 @@
 // src/db/importStream.ts). The same code runs in the import worker, where the file is read
 // with FileReaderSync a few megabytes at a time, and on the main thread where there is no
 // worker (tests under jsdom), where the file's bytes are read once into memory.
-import { applyImport, previewImport, type ApplyResult, type ImportPreview } from '../../db';
+import { applyImport, previewImport, type ApplyResult, type ImportPreview, type OpenPieces } from '../../db';
 import { looksLikeZip } from '../../format/archive';
 import { readArchive } from '../../format/archiveRead';
 import { LIMITS } from '../../format/limits';
-import { bundlePieces, openLog, utf8Source, type LogSource, type OpenPiecesRoute } from '../../format/readStream';
+import { bundlePieces, openLog, utf8Source, type LogSource } from '../../format/readStream';
 import { decodeLogText } from '../../format/text';
 import type { PhotoBytes } from '../../format/types';
 import type { ParseStage, PreviewOutcome } from './progress';
@@ -32,7 +32,7 @@ async function byteRange(file: Blob): Promise<ByteRange> {
 
 export class ImportSession {
   private preview: (ImportPreview & { ok: true }) | null = null;
-  private open: ((route?: OpenPiecesRoute) => ReturnType<typeof openLog>) | null = null;
+  private open: OpenPieces | null = null;
   private photos: PhotoBytes = new Map();
   /** Where the reading's progress goes: the preview's bar; the apply shows its writes instead. */
   private readProgress: (fraction: number) => void = () => {};
@@ -73,7 +73,7 @@ export class ImportSession {
           return decoded.ok ? { text: decoded.text, byteLength: size } : { problem: decoded.problem };
         },
       };
-      this.open = (route) => openLog(src, { route });
+      this.open = (route, checkedHash) => openLog(src, checkedHash === undefined ? { route } : { route, checkedHash });
     }
     const preview = await previewImport(this.open, { photos: this.photos });
     if (!preview.ok) return { ok: false, fileName, problems: preview.problems };
