@@ -74,6 +74,10 @@ export const suite: BenchSuite = {
       if (old.value.points !== TRACK_POINTS) throw new Error(`the whole-file import stored ${old.value.points} of ${TRACK_POINTS} track points`);
       console.log(`db-exchange bench: whole-file import, stages (ms) ${JSON.stringify(old.value.stages)}`);
       const parse = await session((page) => page.evaluate((u) => (window as unknown as W).floeDbPage.bench.benchParseOnly(u), url), baseProfile);
+      const floorProfile = await mkdtemp(join(tmpdir(), 'floe-bench-floor-'));
+      const floor = await session((page) => page.evaluate((u) => (window as unknown as W).floeDbPage.bench.benchBareObservationPut(u), url), floorProfile).finally(() =>
+        rm(floorProfile, { recursive: true, force: true }),
+      );
       const cruiseId = imp.value.cruiseId;
       const streamed = await session((page) => page.evaluate((id) => (window as unknown as W).floeDbPage.bench.benchStreamExport(id), cruiseId));
       const whole = await session((page) => page.evaluate((id) => (window as unknown as W).floeDbPage.bench.benchWholeExport(id), cruiseId));
@@ -81,6 +85,7 @@ export const suite: BenchSuite = {
       rows.push(absoluteRow('import of the full-size log in pieces (Chromium, import worker: preview + one-transaction apply)', imp.value.ms, 'ms', 20_000));
       rows.push(ratioRow('same vs the whole-file import (before: read whole, plan, apply)', imp.value.ms, old.value.subject, 'ms', 1));
       rows.push(ratioRow('context: the import in pieces vs JSON.parse of the same text', imp.value.ms, parse.value, 'ms', 20));
+      rows.push(ratioRow('context: the import in pieces vs the floor, one bare bulkPut of its observations into an empty store', imp.value.ms, floor.value, 'ms', 2));
       rows.push(absoluteRow('peak renderer memory, import in pieces', imp.peakMb, 'MB', 1024));
       rows.push(absoluteRow('context: peak renderer memory, whole-file import (before)', old.peakMb, 'MB', 1024));
       rows.push(ratioRow('export of the full log streamed from the store vs read whole', streamed.value.ms, whole.value.ms, 'ms', 1.5));

@@ -187,6 +187,20 @@ export function benchImportInPieces(url: string): Promise<ImportWorkerResult> {
   });
 }
 
+/**
+ * The floor of any import into an empty store: one bare Dexie bulkPut of the file's 50,000
+ * current observations (read whole beforehand, not timed), in one transaction.
+ */
+export async function benchBareObservationPut(url: string): Promise<number> {
+  const r = readLogText(await (await fetch(url)).text(), { rules: null });
+  if (!r.ok) throw new Error('rejected');
+  const observations = r.bundle.observations;
+  const db = getDb();
+  const t0 = performance.now();
+  await db.transaction('rw', db.observations, () => db.observations.bulkPut(observations));
+  return performance.now() - t0;
+}
+
 /** JSON.parse of the fetched text: the least any reader of the file must do. */
 export async function benchParseOnly(url: string): Promise<number> {
   const text = await (await fetch(url)).text();
