@@ -1,12 +1,13 @@
 // Reading and writing log files for the commands: the same readers as the app (src/format), a
 // size check before a file is read, and problems printed one per line with the file name.
-import { readFileSync, statSync } from 'node:fs';
+import { closeSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
 import { looksLikeZip, writeArchive } from '../format/archive.ts';
 import { exportLogJson } from '../format/encode.ts';
 import { readArchive } from '../format/archiveRead.ts';
 import { LIMITS } from '../format/limits.ts';
 import { formatProblem, formatReport, type ProblemReport } from '../format/problems.ts';
 import { readLogText, type ReadWarning } from '../format/read.ts';
+import { bundlePieces, collectPieces, openLog, utf8Source, type LogCounts, type LogPiece, type LogSource, type LogVerdict } from '../format/readStream.ts';
 import { decodeLogText } from '../format/text.ts';
 import type { LogBundle, PhotoBytes } from '../format/types.ts';
 import { writeFileAtomic } from './atomicWrite.ts';
@@ -17,9 +18,47 @@ export type LoadedLog =
   | { ok: true; file: string; bundle: LogBundle; photos: PhotoBytes; fromVersion: number; warnings: ReadWarning[] }
   | { ok: false; file: string; problems: ProblemReport };
 
-export function loadLog(file: string): LoadedLog {
+export type CheckedLog =
+  | { ok: true; file: string; counts: LogCounts; fromVersion: number; warnings: ReadWarning[] }
+  | { ok: false; file: string; problems: ProblemReport };
+
+/** Bytes read per piece of a JSON log. */
+const PIECE_BYTES = 4 << 20;
+
+/** The text of a file a piece at a time (readSync), for the reader in pieces. */
+function fileSource(file: string, size: number): LogSource {
+  return {
+    pieces: () => {
+      let fd: number | null = openSync(file, 'r');
+      let at = 0;
+      const buf = Buffer.alloc(PIECE_BYTES);
+      return utf8Source(() => {
+        if (fd === null) return null;
+        const n = at < size ? readSync(fd, buf, 0, PIECE_BYTES, at) : 0;
+        at += n;
+        if (n === 0) {
+          closeSync(fd);
+          fd = null;
+          return null;
+        }
+        return new Uint8Array(buf.buffer, buf.byteOffset, n).slice();
+      });
+    },
+    whole: () => {
+      const decoded = decodeLogText(readFileSync(file));
+      return decoded.ok ? { text: decoded.text, byteLength: size } : { problem: decoded.problem };
+    },
+  };
+}
+
+/**
+ * A log file's pieces (src/format/readStream.ts): a JSON log is read a few megabytes at a time
+ * and never held whole unless it is rejected (its report comes from the whole-file reader); a
+ * zip archive is unpacked whole, as its photos must be.
+ */
+function openFile(file: string): { ok: true; pieces: Generator<LogPiece, LogVerdict, void>; photos: PhotoBytes } | (LoadedLog & { ok: false }) {
   let size: number;
-  const unreadable = (why: string): LoadedLog => ({ ok: false, file, problems: { listed: [{ path: '$', message: why }], more: 0 } });
+  const unreadable = (why: string) => ({ ok: false as const, file, problems: { listed: [{ path: '$', message: why }], more: 0 } });
   try {
     const st = statSync(file);
     if (!st.isFile()) return unreadable('is not a file');
@@ -27,21 +66,43 @@ export function loadLog(file: string): LoadedLog {
   } catch (e) {
     return unreadable(`cannot be read (${e instanceof Error ? e.message.replace(/^[A-Z]+: /, '') : String(e)})`);
   }
-  if (size > LIMITS.maxFileBytes) {
-    return { ok: false, file, problems: { listed: [{ path: '$', message: `the file has ${size} bytes, more than the limit of ${LIMITS.maxFileBytes}` }], more: 0 } };
+  if (size > LIMITS.maxFileBytes) return unreadable(`the file has ${size} bytes, more than the limit of ${LIMITS.maxFileBytes}`);
+  const head = Buffer.alloc(4);
+  const fd = openSync(file, 'r');
+  try {
+    readSync(fd, head, 0, 4, 0);
+  } finally {
+    closeSync(fd);
   }
-  const bytes = readFileSync(file);
-  if (looksLikeZip(bytes)) {
+  if (looksLikeZip(head)) {
+    const bytes = readFileSync(file);
     const r = readArchive(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-    return r.ok ? { ok: true, file, bundle: r.bundle, photos: r.photos, fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
+    return r.ok ? { ok: true, pieces: bundlePieces(r), photos: r.photos } : { ok: false, file, problems: r.problems };
   }
-  const decoded = decodeLogText(bytes);
-  if (!decoded.ok) return { ok: false, file, problems: { listed: [decoded.problem], more: 0 } };
-  const r = readLogText(decoded.text, {}, size);
-  return r.ok ? { ok: true, file, bundle: r.bundle, photos: new Map(), fromVersion: r.fromVersion, warnings: r.warnings } : { ok: false, file, problems: r.problems };
+  return { ok: true, pieces: openLog(fileSource(file, size)), photos: new Map() };
 }
 
-export function printProblems(io: CliIO, log: LoadedLog & { ok: false }) {
+export function loadLog(file: string): LoadedLog {
+  const opened = openFile(file);
+  if (!opened.ok) return opened;
+  const { verdict, bundle } = collectPieces(opened.pieces);
+  if (!verdict.ok || !bundle) return { ok: false, file, problems: verdict.ok ? { listed: [{ path: '$', message: 'no log in the file' }], more: 0 } : verdict.problems };
+  return { ok: true, file, bundle, photos: opened.photos, fromVersion: verdict.fromVersion, warnings: verdict.warnings };
+}
+
+/** Checks a log file as loadLog does but keeps only counts: its memory does not grow with the file. */
+export function checkLog(file: string): CheckedLog {
+  const opened = openFile(file);
+  if (!opened.ok) return opened;
+  for (;;) {
+    const n = opened.pieces.next();
+    if (!n.done) continue;
+    const v = n.value;
+    return v.ok ? { ok: true, file, counts: v.counts, fromVersion: v.fromVersion, warnings: v.warnings } : { ok: false, file, problems: v.problems };
+  }
+}
+
+export function printProblems(io: CliIO, log: { file: string; problems: ProblemReport }) {
   for (const line of formatReport(log.problems)) io.stderr(visible(`${log.file}: ${line}`));
 }
 

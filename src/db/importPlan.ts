@@ -6,6 +6,7 @@ import type { Observation } from '../domain/model';
 import { canonicalJson, type MergePlan, type MergeTarget, type StoredVersions } from '../format/merge';
 import type { PhotoBytes } from '../format/types';
 import { getDb, writableDb } from './connection';
+import type { FloeDatabase } from './database';
 import { FloeDbError, mapWriteError } from './errors';
 import type { ConflictRecord, ObservationRevision, PhotoRecord } from './rows';
 import { allTrackChunksIn, mergeTrackPointsInTransaction, storedTrackTimes } from './trackPoints';
@@ -85,11 +86,17 @@ export interface ApplyResult {
   photosWithoutBytes: number;
 }
 
-export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promise<ApplyResult> {
-  const db = await writableDb();
-  const at = nowIso();
+/** The rows a plan writes, built before its transaction (no await between them and the writes). */
+export interface PlanRows {
+  photos: PhotoRecord[];
+  revisions: ObservationRevision[];
+  conflicts: ConflictRecord[];
+  photosWithoutBytes: number;
+}
+
+export function planRows(plan: MergePlan, opts: ApplyOptions, at: string): PlanRows {
   const cruiseId = plan.cruise.value.id;
-  const photoRows: PhotoRecord[] = [];
+  const photos: PhotoRecord[] = [];
   let photosWithoutBytes = 0;
   for (const p of plan.addPhotos) {
     const bytes = opts.photos?.get(p.id);
@@ -108,10 +115,10 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
       blob: new Blob([bytes as Uint8Array<ArrayBuffer>], { type: p.mediaType }),
     };
     if (p.takenAt !== undefined) row.takenAt = p.takenAt;
-    photoRows.push(row);
+    photos.push(row);
   }
-  const revisionRows: ObservationRevision[] = plan.addHistory.map((o) => ({ observationId: o.id, revision: o.revision, supersededAt: at, observation: o }));
-  const conflictRows: ConflictRecord[] = plan.addConflicts.map((o) => ({
+  const revisions: ObservationRevision[] = plan.addHistory.map((o) => ({ observationId: o.id, revision: o.revision, supersededAt: at, observation: o }));
+  const conflicts: ConflictRecord[] = plan.addConflicts.map((o) => ({
     id: conflictId(o),
     observationId: o.id,
     cruiseId,
@@ -120,6 +127,25 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
     source: opts.source.slice(0, 200),
     observation: o,
   }));
+  return { photos, revisions, conflicts, photosWithoutBytes };
+}
+
+/**
+ * Writes a plan's observations, history rows, conflict copies, track points and photos inside
+ * the caller's read-write transaction (the cruise is the caller's: a plan in pieces writes it once).
+ */
+export async function writePlanInTransaction(db: FloeDatabase, plan: MergePlan, rows: PlanRows): Promise<void> {
+  if (plan.putCurrent.length > 0) await db.observations.bulkPut(plan.putCurrent);
+  // bulkAdd: an existing history row is never replaced; a clash aborts the whole import.
+  if (rows.revisions.length > 0) await db.revisions.bulkAdd(rows.revisions);
+  if (rows.conflicts.length > 0) await db.conflicts.bulkPut(rows.conflicts);
+  if (plan.addTrack.length > 0) await mergeTrackPointsInTransaction(db, plan.addTrack.map(toTimed));
+  if (rows.photos.length > 0) await db.photos.bulkAdd(rows.photos);
+}
+
+export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promise<ApplyResult> {
+  const db = await writableDb();
+  const rows = planRows(plan, opts, nowIso());
   try {
     await db.transaction('rw', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
       const expected = new Map(plan.items.map((i) => [i.id, i.storedRevision]));
@@ -130,12 +156,7 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
         if ((o?.revision ?? null) !== expected.get(id)) throw new StaleImportError(id);
       });
       if (plan.cruise.action !== 'unchanged') await db.cruises.put(plan.cruise.value);
-      if (plan.putCurrent.length > 0) await db.observations.bulkPut(plan.putCurrent);
-      // bulkAdd: an existing history row is never replaced; a clash aborts the whole import.
-      if (revisionRows.length > 0) await db.revisions.bulkAdd(revisionRows);
-      if (conflictRows.length > 0) await db.conflicts.bulkPut(conflictRows);
-      if (plan.addTrack.length > 0) await mergeTrackPointsInTransaction(db, plan.addTrack.map(toTimed));
-      if (photoRows.length > 0) await db.photos.bulkAdd(photoRows);
+      await writePlanInTransaction(db, plan, rows);
     });
   } catch (err) {
     if (err instanceof StaleImportError) throw err;
@@ -143,11 +164,11 @@ export async function applyMergePlan(plan: MergePlan, opts: ApplyOptions): Promi
   }
   return {
     observations: plan.putCurrent.length,
-    history: revisionRows.length,
-    conflicts: conflictRows.length,
+    history: rows.revisions.length,
+    conflicts: rows.conflicts.length,
     trackPoints: plan.addTrack.length,
-    photos: photoRows.length,
-    photosWithoutBytes,
+    photos: rows.photos.length,
+    photosWithoutBytes: rows.photosWithoutBytes,
   };
 }
 

@@ -110,9 +110,10 @@ function planCruise(stored: Cruise | null, incoming: Cruise): MergePlan['cruise'
 
 type Role = 0 | 1 | 2; // current, history, conflict copy: the order versions of one revision are taken in
 
-export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
-  const plan: MergePlan = {
-    cruise: planCruise(target.cruise, incoming.cruise),
+/** A plan with nothing in it yet, for the cruise's decision. */
+export function emptyPlan(cruise: MergePlan['cruise']): MergePlan {
+  return {
+    cruise,
     putCurrent: [],
     addHistory: [],
     addConflicts: [],
@@ -121,7 +122,19 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
     items: [],
     counts: { new: 0, identical: 0, newer: 0, older: 0, conflict: 0, versionsWritten: 0, trackNew: 0, trackDuplicate: 0, photosNew: 0, photosDuplicate: 0 },
   };
+}
 
+/** The cruise's decision alone (a reader in pieces knows the cruise before the rest). */
+export function planCruiseOf(target: MergeTarget, incoming: Cruise): MergePlan['cruise'] {
+  return planCruise(target.cruise, incoming);
+}
+
+/**
+ * Plans incoming observations with their earlier revisions and conflict copies (each
+ * observation's versions must all be in the lists given): adds to `plan`. Observations are
+ * planned one by one, so a file can be planned a run of observations at a time.
+ */
+export function planObservations(plan: MergePlan, target: MergeTarget, incoming: Pick<LogBundle, 'observations' | 'history' | 'conflicts'>): void {
   const extra = new Map<string, { v: Observation; role: Role }[]>();
   const addExtra = (v: Observation, role: Role) => {
     const list = extra.get(v.id);
@@ -130,11 +143,20 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
   };
   for (const h of incoming.history) addExtra(h, 1);
   for (const c of incoming.conflicts) addExtra(c, 2);
-
+  const before = plan.putCurrent.length + plan.addHistory.length + plan.addConflicts.length;
   for (const current of incoming.observations) {
-    const versions = [{ v: current, role: 0 as Role }, ...(extra.get(current.id) ?? [])];
-    versions.sort((a, b) => a.v.revision - b.v.revision || a.role - b.role);
     const stored = target.versions(current.id);
+    const more = extra.get(current.id);
+    if (!stored && !more) {
+      // New, with no other version in the file: nothing to compare (the common case of a first
+      // import, and the costly one if every version were turned into canonical text).
+      plan.putCurrent.push(current);
+      plan.items.push({ id: current.id, time: current.time, kind: 'new', incomingRevision: current.revision, storedRevision: null });
+      plan.counts.new++;
+      continue;
+    }
+    const versions = [{ v: current, role: 0 as Role }, ...(more ?? [])];
+    versions.sort((a, b) => a.v.revision - b.v.revision || a.role - b.role);
     const known: { revision: number; key: string }[] = [];
     if (stored) for (const s of [stored.current, ...stored.others]) known.push({ revision: s.revision, key: canonicalJson(s) });
     let cur: Observation | undefined = stored?.current;
@@ -177,24 +199,44 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
     plan.items.push({ id: current.id, time: current.time, kind: itemKind, incomingRevision: current.revision, storedRevision: stored?.current.revision ?? null });
     plan.counts[itemKind]++;
   }
-  plan.counts.versionsWritten = plan.putCurrent.length + plan.addHistory.length + plan.addConflicts.length;
+  plan.counts.versionsWritten += plan.putCurrent.length + plan.addHistory.length + plan.addConflicts.length - before;
+}
 
-  const seenTimes = new Set<string>();
-  for (const p of incoming.track) {
-    if (target.hasTrackTime(p.time) || seenTimes.has(p.time)) {
+/** Anything with `has` and `add` for times: a Set, or the last time only for a track in time order. */
+export interface TimeSeen {
+  has: (time: string) => boolean;
+  add: (time: string) => void;
+}
+
+/** Plans incoming track points; `seen` holds the times planned before (repeats in the file). */
+export function planTrack(plan: MergePlan, target: MergeTarget, points: readonly TrackPoint[], seen: TimeSeen): void {
+  const before = plan.addTrack.length;
+  for (const p of points) {
+    if (target.hasTrackTime(p.time) || seen.has(p.time)) {
       plan.counts.trackDuplicate++;
       continue;
     }
-    seenTimes.add(p.time);
+    seen.add(p.time);
     plan.addTrack.push(p);
   }
-  plan.counts.trackNew = plan.addTrack.length;
+  plan.counts.trackNew += plan.addTrack.length - before;
+}
 
-  for (const p of incoming.photos) {
+export function planPhotos(plan: MergePlan, target: MergeTarget, photos: readonly PhotoMeta[]): void {
+  for (const p of photos) {
     if (target.hasPhoto(p.id)) plan.counts.photosDuplicate++;
-    else plan.addPhotos.push(p);
+    else {
+      plan.addPhotos.push(p);
+      plan.counts.photosNew++;
+    }
   }
-  plan.counts.photosNew = plan.addPhotos.length;
+}
+
+export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
+  const plan = emptyPlan(planCruise(target.cruise, incoming.cruise));
+  planObservations(plan, target, incoming);
+  planTrack(plan, target, incoming.track, new Set<string>());
+  planPhotos(plan, target, incoming.photos);
   return plan;
 }
 

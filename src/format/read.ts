@@ -152,6 +152,23 @@ function parseError(text: string, err: unknown): Problem {
   return { path: '$', message: `not valid JSON (${err instanceof Error ? err.message : String(err)})` };
 }
 
+/** The domain rules on one saved version at `where` (a JSON path): errors to `problems`, the rest to `warnings`. */
+export function ruleFindings(rules: RuleCheck, o: Observation, cruise: Cruise, where: string, problems: Problem[], warnings: ReadWarning[]): void {
+  for (const f of rules(o, cruise)) {
+    const path = `${where}${f.path ? `.${f.path.replace(/\.(\d+)(?=\.|$)/g, '[$1]')}` : ''}`;
+    if (f.severity === 'error') problems.push({ path, message: `${f.message} (rule ${f.code})` });
+    else warnings.push({ path, message: `${f.message} (rule ${f.code})` });
+  }
+}
+
+/** Photo ids that name no photo of the file: `refs` are [observation index, its photo ids]. */
+export function photoWarnings(refs: Iterable<readonly [number, readonly string[]]>, photoIds: ReadonlySet<string>, warnings: ReadWarning[]): void {
+  for (const [i, ids] of refs)
+    ids.forEach((id, k) => {
+      if (!photoIds.has(id)) warnings.push({ path: `$.observations[${i}].photoIds[${k}]`, message: `names photo ${JSON.stringify(id)}, which is not in this file` });
+    });
+}
+
 /** Reads log text of any supported version. `byteLength` is the file's size, when known. */
 export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: number): ReadResult {
   const limits = { ...LIMITS, ...opts.limits };
@@ -226,11 +243,10 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
   const warnings: ReadWarning[] = [];
   // A photo id with no photo in the file: the image was left out (a JSON log of a cruise whose
   // photos were never exported) or the id is wrong. Imported, but said.
-  const photoIds = new Set(bundle.photos.map((p) => p.id));
-  bundle.observations.forEach((o, i) =>
-    o.photoIds.forEach((id, k) => {
-      if (!photoIds.has(id)) warnings.push({ path: `$.observations[${i}].photoIds[${k}]`, message: `names photo ${JSON.stringify(id)}, which is not in this file` });
-    }),
+  photoWarnings(
+    bundle.observations.map((o, i) => [i, o.photoIds] as const),
+    new Set(bundle.photos.map((p) => p.id)),
+    warnings,
   );
   const rules = opts.rules === undefined ? validateObservation : opts.rules;
   if (rules) {
@@ -238,13 +254,7 @@ export function readLogText(input: string, opts: ReadOptions = {}, byteLength?: 
     const index = new Map<string, number>();
     bundle.observations.forEach((o, i) => index.set(o.id, i));
     const ruleProblems: Problem[] = [];
-    const check = (o: Observation, where: string) => {
-      for (const f of rules(o, bundle.cruise)) {
-        const path = `${where}${f.path ? `.${f.path.replace(/\.(\d+)(?=\.|$)/g, '[$1]')}` : ''}`;
-        if (f.severity === 'error') ruleProblems.push({ path, message: `${f.message} (rule ${f.code})` });
-        else warnings.push({ path, message: `${f.message} (rule ${f.code})` });
-      }
-    };
+    const check = (o: Observation, where: string) => ruleFindings(rules, o, bundle.cruise, where, ruleProblems, warnings);
     bundle.observations.forEach((o, i) => check(o, `$.observations[${i}]`));
     const historyCount = new Map<string, number>();
     for (const h of bundle.history) {

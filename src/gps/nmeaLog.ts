@@ -9,15 +9,12 @@ import {
   BadLineList, finishPoints, inChunks, isoUtc, splitLines, type TrackImportOptions, type TrackImportResult,
 } from './trackImport';
 
-interface Parsed {
-  line: number;
-  s: NmeaSentence;
-}
-
 export async function importNmeaLog(text: string, opts: TrackImportOptions): Promise<TrackImportResult> {
   const lines = splitLines(text);
   const bad = new BadLineList();
-  const parsed: Parsed[] = [];
+  // Sentences and their line numbers side by side: one object fewer per sentence for the collector.
+  const parsed: NmeaSentence[] = [];
+  const lineOf: number[] = [];
   let skipped = 0;
   let records = 0;
   await inChunks(lines.length, opts, 'reading sentences', 0, 0.7, (i) => {
@@ -34,14 +31,17 @@ export async function importNmeaLog(text: string, opts: TrackImportOptions): Pro
       return;
     }
     const r = parseNmea(start === 0 ? raw : raw.slice(start));
-    if (r.ok) parsed.push({ line: i + 1, s: r.value });
+    if (r.ok) {
+      parsed.push(r.value);
+      lineOf.push(i + 1);
+    }
     else if (r.error.kind === 'unsupported') skipped++;
     else bad.add(i + 1, describeNmeaError(r.error));
   });
 
   // Dating GGA: the RMC date nearest in the file; before the first RMC, the first one.
   const fallbackMs = opts.defaultDate ? Date.parse(`${opts.defaultDate}T12:00:00Z`) : Number.NaN;
-  const firstRmc = parsed.find((p) => p.s.type === 'RMC' && p.s.date && p.s.timeOfDay !== null)?.s;
+  const firstRmc = parsed.find((s) => s.type === 'RMC' && s.date && s.timeOfDay !== null);
   let referenceMs = firstRmc?.type === 'RMC' && firstRmc.date && firstRmc.timeOfDay !== null
     ? fixEpochMs(firstRmc.timeOfDay, firstRmc.date, 0)
     : fallbackMs;
@@ -57,7 +57,8 @@ export async function importNmeaLog(text: string, opts: TrackImportOptions): Pro
     return current;
   };
   await inChunks(parsed.length, opts, 'building the track', 0.7, 1, (i) => {
-    const { line, s } = parsed[i] as Parsed;
+    const s = parsed[i] as NmeaSentence;
+    const line = lineOf[i] as number;
     switch (s.type) {
       case 'RMC': {
         if (s.status !== 'A' || s.mode === 'N' || s.lat === null || s.lon === null) {

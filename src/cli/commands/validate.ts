@@ -2,7 +2,7 @@
 // problem, naming the file, the place (line, JSON path) and the reason.
 import { parseOptions } from '../args.ts';
 import { EXIT_FAILURE, EXIT_OK, UsageError, type CliIO, type Command } from '../command.ts';
-import { loadLog, printProblems } from '../logFiles.ts';
+import { checkLog, printProblems } from '../logFiles.ts';
 import { visible } from '../terminalText.ts';
 
 const usage = `Usage: npm run cli -- validate FILE... [--quiet]
@@ -26,16 +26,16 @@ export const validateCommand: Command = {
     if (positionals.length === 0) throw new UsageError('give at least one FILE');
     let failed = 0;
     for (const file of positionals) {
-      const log = loadLog(file);
+      const log = checkLog(file);
       if (!log.ok) {
         printProblems(io, log);
         failed++;
         continue;
       }
       if (values.quiet) continue;
-      const b = log.bundle;
+      const b = log.counts;
       const migrated = log.fromVersion < 1 ? ` (format version ${log.fromVersion}, read by migration)` : '';
-      io.stdout(`${visible(file)}: valid${migrated}: ${b.observations.length} observations, ${b.history.length} earlier revisions, ${b.track.length} track points, ${b.photos.length} photos`);
+      io.stdout(`${visible(file)}: valid${migrated}: ${b.observations} observations, ${b.history} earlier revisions, ${b.trackPoints} track points, ${b.photos} photos`);
       for (const w of log.warnings) io.stdout(visible(`${file}: warning: ${w.path}: ${w.message}`));
     }
     return failed > 0 ? EXIT_FAILURE : EXIT_OK;

@@ -1,24 +1,26 @@
 // Import by file picker or drag and drop: parse in a worker with a progress bar, show what the
 // merge would do, and write only when the observer applies it (one transaction).
-import { useRef, useState, type DragEvent } from 'react';
-import { applyMergePlan, getSetting, loadMergeTarget, setActiveCruise, StaleImportError, type ApplyResult } from '../../db';
-import { planIsEmpty, planMerge, type MergePlan } from '../../format/merge';
+import { useEffect, useRef, useState, type DragEvent } from 'react';
+import { getSetting, ImportFileChangedError, setActiveCruise, StaleImportError, type ApplyResult } from '../../db';
 import { formatProblem } from '../../format/problems';
-import type { ParsedFile } from './progress';
-import { parseInWorker } from './parseClient';
-import { ImportPreview } from './ImportPreview';
+import { ImportFailed, startImport, type ImportClient } from './importClient';
+import type { PreviewOutcome } from './progress';
+import { ImportPreview, summaryIsEmpty } from './ImportPreview';
+
+type Previewed = PreviewOutcome & { ok: true };
 
 type Phase =
   | { kind: 'idle' }
   | { kind: 'reading'; fileName: string; progress: number; stage: string }
-  | { kind: 'rejected'; parsed: ParsedFile & { ok: false } }
-  | { kind: 'preview'; parsed: ParsedFile & { ok: true }; plan: MergePlan }
-  | { kind: 'applying'; parsed: ParsedFile & { ok: true }; plan: MergePlan }
+  | { kind: 'rejected'; parsed: PreviewOutcome & { ok: false } }
+  | { kind: 'preview'; parsed: Previewed }
+  | { kind: 'applying'; parsed: Previewed; progress: number }
   | { kind: 'done'; fileName: string; result: ApplyResult }
   | { kind: 'failed'; fileName: string; message: string };
 
 const STAGE_WORDS: Record<string, string> = {
   read: 'Reading the file',
+  pieces: 'Reading and checking the file',
   scan: 'Checking its size and structure',
   parse: 'Parsing',
   schema: 'Checking against the format schema',
@@ -31,34 +33,55 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
   const [dragging, setDragging] = useState(false);
   const [note, setNote] = useState<string | null>(null);
   const input = useRef<HTMLInputElement>(null);
+  const client = useRef<ImportClient | null>(null);
   const busy = phase.kind === 'reading' || phase.kind === 'applying';
 
+  const release = () => {
+    client.current?.close();
+    client.current = null;
+  };
+  useEffect(() => release, []);
+
   async function open(file: File) {
+    release();
     setPhase({ kind: 'reading', fileName: file.name, progress: 0, stage: 'read' });
+    const c = (client.current = startImport(file, file.name, (progress, stage) => setPhase({ kind: 'reading', fileName: file.name, progress, stage })));
     try {
-      const parsed = await parseInWorker(file, file.name, (progress, stage) => setPhase({ kind: 'reading', fileName: file.name, progress, stage }));
+      const parsed = await c.preview;
+      if (client.current !== c) return;
       if (!parsed.ok) {
+        release();
         setPhase({ kind: 'rejected', parsed });
         return;
       }
-      const plan = planMerge(await loadMergeTarget(parsed.bundle.cruise.id), parsed.bundle);
-      setPhase({ kind: 'preview', parsed, plan });
+      setPhase({ kind: 'preview', parsed });
     } catch (err) {
+      release();
       setPhase({ kind: 'failed', fileName: file.name, message: err instanceof Error ? err.message : String(err) });
     }
   }
 
-  async function apply(parsed: ParsedFile & { ok: true }, plan: MergePlan) {
-    setPhase({ kind: 'applying', parsed, plan });
+  async function apply(parsed: Previewed) {
+    const c = client.current;
+    if (!c) return;
+    setPhase({ kind: 'applying', parsed, progress: 0 });
     try {
-      const result = await applyMergePlan(plan, { source: parsed.fileName, photos: parsed.photos });
-      if (!(await getSetting('activeCruiseId'))) await setActiveCruise(plan.cruise.value.id);
+      const result = await c.apply((progress) => setPhase({ kind: 'applying', parsed, progress }));
+      release();
+      const cruiseId = parsed.summary.cruise.value.id;
+      if (!(await getSetting('activeCruiseId'))) await setActiveCruise(cruiseId);
       setPhase({ kind: 'done', fileName: parsed.fileName, result });
-      onImported(plan.cruise.value.id);
+      onImported(cruiseId);
     } catch (err) {
-      const stale = err instanceof StaleImportError;
+      release();
+      const stale = err instanceof ImportFailed ? err.stale : err instanceof StaleImportError || err instanceof ImportFileChangedError;
       setPhase({ kind: 'failed', fileName: parsed.fileName, message: `${stale ? '' : 'Nothing was imported: '}${err instanceof Error ? err.message : String(err)}` });
     }
+  }
+
+  function cancel() {
+    release();
+    setPhase({ kind: 'idle' });
   }
 
   function onDrop(e: DragEvent<HTMLDivElement>) {
@@ -136,20 +159,21 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
       {(phase.kind === 'preview' || phase.kind === 'applying') && (
         <div className="import-preview">
           <h4>Preview of {phase.parsed.fileName}</h4>
-          <ImportPreview
-            plan={phase.plan}
-            warnings={phase.parsed.warnings}
-            fromVersion={phase.parsed.fromVersion}
-            photosWithoutBytes={phase.plan.addPhotos.filter((p) => !phase.parsed.photos.has(p.id)).length}
-          />
-          {planIsEmpty(phase.plan) ? (
+          <ImportPreview summary={phase.parsed.summary} />
+          {summaryIsEmpty(phase.parsed.summary) ? (
             <p role="status" data-testid="import-nothing">Everything in this file is already stored: there is nothing to import.</p>
           ) : null}
+          {phase.kind === 'applying' && (
+            <label>
+              Writing into the store
+              <progress value={phase.progress} max={1} data-testid="import-apply-progress" />
+            </label>
+          )}
           <div className="button-row">
-            <button type="button" className="button primary" disabled={phase.kind === 'applying' || planIsEmpty(phase.plan)} onClick={() => void apply(phase.parsed, phase.plan)}>
+            <button type="button" className="button primary" disabled={phase.kind === 'applying' || summaryIsEmpty(phase.parsed.summary)} onClick={() => void apply(phase.parsed)}>
               {phase.kind === 'applying' ? 'Importing...' : 'Apply import'}
             </button>
-            <button type="button" className="button" disabled={phase.kind === 'applying'} onClick={() => setPhase({ kind: 'idle' })}>
+            <button type="button" className="button" disabled={phase.kind === 'applying'} onClick={cancel}>
               Cancel
             </button>
           </div>

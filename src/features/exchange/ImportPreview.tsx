@@ -1,8 +1,7 @@
 // What an import would do, before anything is written: counts per category.
-import type { MergePlan } from '../../format/merge';
-import type { ReadWarning } from '../../format/read';
+import type { ImportSummary } from '../../db';
 
-const ROWS: { key: keyof MergePlan['counts']; label: string; note: string }[] = [
+const ROWS: { key: keyof ImportSummary['counts']; label: string; note: string }[] = [
   { key: 'new', label: 'New observations', note: 'added' },
   { key: 'newer', label: 'Newer revisions', note: 'applied; the stored version goes to the history' },
   { key: 'older', label: 'Older revisions', note: 'kept as history' },
@@ -13,8 +12,13 @@ const ROWS: { key: keyof MergePlan['counts']; label: string; note: string }[] = 
   { key: 'photosNew', label: 'New photos', note: 'added' },
 ];
 
-export function ImportPreview({ plan, warnings, fromVersion, photosWithoutBytes }: { plan: MergePlan; warnings: ReadWarning[]; fromVersion: number; photosWithoutBytes: number }) {
-  const cruise = plan.cruise;
+/** True when applying the import would change nothing. */
+export function summaryIsEmpty(s: ImportSummary): boolean {
+  return s.cruise.action === 'unchanged' && s.counts.versionsWritten === 0 && s.counts.trackNew === 0 && s.counts.photosNew === 0;
+}
+
+export function ImportPreview({ summary }: { summary: ImportSummary }) {
+  const { cruise, counts, warnings, fromVersion, photosWithoutBytes } = summary;
   return (
     <div data-testid="import-preview">
       <p>
@@ -27,7 +31,7 @@ export function ImportPreview({ plan, warnings, fromVersion, photosWithoutBytes 
           {ROWS.map((r) => (
             <tr key={r.key} data-testid={`count-${r.key}`}>
               <th scope="row">{r.label}</th>
-              <td className="num">{plan.counts[r.key]}</td>
+              <td className="num">{counts[r.key]}</td>
               <td className="muted">{r.note}</td>
             </tr>
           ))}

@@ -26,11 +26,14 @@ export const suite: BenchSuite = {
       const t = new GpsTracker();
       for (const l of lines) t.acceptLine(l, 0);
     }, () => bareFields(log), 7);
-    const nmea = await compare(() => importNmeaLog(log, { cruiseId: 'c', chunkSize: 1e9 }), () => bareFields(log), 5);
+    // The NMEA import's ratio moved between 2.8x and 4.0x from run to run with 5 rounds on the
+    // shared machine: 25 interleaved rounds after a warm-up of both sides, median of each.
+    await compare(() => importNmeaLog(log, { cruiseId: 'c', chunkSize: 1e9 }), () => bareFields(log), 3);
+    const nmea = await compare(() => importNmeaLog(log, { cruiseId: 'c', chunkSize: 1e9 }), () => bareFields(log), 25);
     const csvRun = await compare(() => importCsvTrack(csv, { cruiseId: 'c', chunkSize: 1e9 }), () => Papa.parse(csv, { header: true }), 5);
     return [
       ratioRow(`parse ${lines.length} NMEA sentences into a live fix`, live.subject, live.baseline, 'ms', 4),
-      ratioRow(`import an NMEA log of ${track.length} fixes`, nmea.subject, nmea.baseline, 'ms', 4),
+      ratioRow(`import an NMEA log of ${track.length} fixes (median of 25 interleaved)`, nmea.subject, nmea.baseline, 'ms', 3),
       ratioRow(`import a CSV track of ${track.length} rows (baseline: bare papaparse)`, csvRun.subject, csvRun.baseline, 'ms', 6),
     ];
   },

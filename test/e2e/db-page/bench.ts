@@ -10,6 +10,7 @@ import { piecesToBlob } from '../../../src/features/exchange/exportFiles';
 import { exportLogJson } from '../../../src/format/encode';
 import { planMerge } from '../../../src/format/merge';
 import { readLogText } from '../../../src/format/read';
+import type { ImportWorkerResult } from './import-worker';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -140,9 +141,9 @@ export async function benchLiveFix(rounds: number): Promise<{ subject: number; b
 }
 
 /**
- * A log file fetched from the test server and imported into the store the way the Exchange
- * screen does it: the file's text, read (size, scan, parse, schema, checks, rules), merge plan,
- * one-transaction apply. Then JSON.parse of the same text alone, as context.
+ * A log file fetched from the test server and imported the way the Exchange screen did before
+ * the import in pieces: the file's text, read whole (size, scan, parse, schema, checks, rules),
+ * merge plan, one-transaction apply. The baseline of benchImportInPieces.
  */
 export async function benchImport(url: string): Promise<{ subject: number; baseline: number; bytes: number; cruiseId: string; stages: Record<string, number>; points: number }> {
   let t0 = performance.now();
@@ -164,6 +165,40 @@ export async function benchImport(url: string): Promise<{ subject: number; basel
   const subject = performance.now() - t0;
   const points = await countTrackPoints(r.bundle.cruise.id);
   return { subject, baseline: NaN, bytes, cruiseId: r.bundle.cruise.id, stages: { fetched, read, merge, apply }, points };
+}
+
+/**
+ * The import as the Exchange screen makes it now: in the page's import worker, the file read in
+ * pieces for the preview and again for the one-transaction apply.
+ */
+export function benchImportInPieces(url: string): Promise<ImportWorkerResult> {
+  return new Promise((resolve, reject) => {
+    const w = new Worker(new URL('./import-worker.js', location.href), { type: 'module' });
+    w.onmessage = (ev: MessageEvent<{ ok: true; result: ImportWorkerResult } | { ok: false; message: string }>) => {
+      w.terminate();
+      if (ev.data.ok) resolve(ev.data.result);
+      else reject(new Error(ev.data.message));
+    };
+    w.onerror = (ev) => {
+      w.terminate();
+      reject(new Error(ev.message || 'the import worker failed'));
+    };
+    w.postMessage({ url: new URL(url, location.href).href });
+  });
+}
+
+/**
+ * The floor of any import into an empty store: one bare Dexie bulkPut of the file's 50,000
+ * current observations (read whole beforehand, not timed), in one transaction.
+ */
+export async function benchBareObservationPut(url: string): Promise<number> {
+  const r = readLogText(await (await fetch(url)).text(), { rules: null });
+  if (!r.ok) throw new Error('rejected');
+  const observations = r.bundle.observations;
+  const db = getDb();
+  const t0 = performance.now();
+  await db.transaction('rw', db.observations, () => db.observations.bulkPut(observations));
+  return performance.now() - t0;
 }
 
 /** JSON.parse of the fetched text: the least any reader of the file must do. */

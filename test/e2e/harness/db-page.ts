@@ -16,22 +16,23 @@ export const DB_PAGE_DIR = join(ROOT, 'dist-e2e-db');
 
 let built: Promise<void> | null = null;
 
-/** Bundles test/e2e/db-page/entry.ts (and with it src/db) into dist-e2e-db/. */
+/** One entry of the page bundled by Vite into dist-e2e-db/ as an ES module. */
+function bundle(entry: string, fileName: string, emptyOutDir: boolean) {
+  return build({
+    configFile: false,
+    root: ROOT,
+    logLevel: 'warn',
+    cacheDir: join(ROOT, '.vite-cache'),
+    build: { outDir: DB_PAGE_DIR, emptyOutDir, target: 'es2022', minify: false, lib: { entry: join(ROOT, entry), formats: ['es'], fileName: () => fileName } },
+  });
+}
+
+/** Bundles test/e2e/db-page/entry.ts (and with it src/db) into dist-e2e-db/, and its import worker. */
 export function buildDbPage(): Promise<void> {
   built ??= (async () => {
-    await build({
-      configFile: false,
-      root: ROOT,
-      logLevel: 'warn',
-      cacheDir: join(ROOT, '.vite-cache'),
-      build: {
-        outDir: DB_PAGE_DIR,
-        emptyOutDir: true,
-        target: 'es2022',
-        minify: false,
-        lib: { entry: join(ROOT, 'test/e2e/db-page/entry.ts'), formats: ['es'], fileName: () => 'db-page.js' },
-      },
-    });
+    await bundle('test/e2e/db-page/entry.ts', 'db-page.js', true);
+    // The import worker of the page: the app's import session, run off the page as the app runs it.
+    await bundle('test/e2e/db-page/import-worker.ts', 'import-worker.js', false);
     await mkdir(DB_PAGE_DIR, { recursive: true });
     await writeFile(
       join(DB_PAGE_DIR, 'index.html'),

@@ -1,0 +1,37 @@
+// A worker of the db test page that imports a log the way the Exchange screen's import worker
+// does (src/features/exchange/importSession.ts: preview in pieces, then the apply in one
+// transaction), timing each pass. Built beside the page (test/e2e/harness/db-page.ts).
+import { countTrackPoints } from '../../../src/db';
+import { ImportSession } from '../../../src/features/exchange/importSession';
+
+export interface ImportWorkerResult {
+  ms: number;
+  stages: Record<string, number>;
+  points: number;
+  cruiseId: string;
+  route: string;
+  bytes: number;
+}
+
+self.onmessage = async (ev: MessageEvent<{ url: string }>) => {
+  try {
+    let t0 = performance.now();
+    // A Blob: Chromium keeps a large one out of the page's memory, as it does a picked file.
+    const blob = await (await fetch(ev.data.url)).blob();
+    const fetched = performance.now() - t0;
+    t0 = performance.now();
+    const session = new ImportSession(blob, 'bench.json');
+    const preview = await session.start(() => {});
+    if (!preview.ok) throw new Error(`the benchmark log was rejected: ${preview.problems.listed[0]?.message}`);
+    const previewMs = performance.now() - t0;
+    const t1 = performance.now();
+    await session.apply(() => {});
+    const apply = performance.now() - t1;
+    const ms = performance.now() - t0;
+    const cruiseId = preview.summary.cruise.value.id;
+    const result: ImportWorkerResult = { ms, stages: { fetched, preview: previewMs, apply }, points: await countTrackPoints(cruiseId), cruiseId, route: preview.summary.route, bytes: blob.size };
+    self.postMessage({ ok: true, result });
+  } catch (err) {
+    self.postMessage({ ok: false, message: err instanceof Error ? `${err.name}: ${err.message}` : String(err) });
+  }
+};
