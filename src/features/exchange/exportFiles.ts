@@ -4,7 +4,10 @@ import { writeArchive } from '../../format/archive';
 import { writeCsv } from '../../format/csv';
 import { writeGeoJson } from '../../format/geojson';
 import { writeNdjson } from '../../format/ndjson';
-import { MEDIA_TYPE } from '../../format/types';
+import { MEDIA_TYPE, type LogBundle } from '../../format/types';
+import type { FlatOptions } from '../../format/flat';
+import { collocateProducts } from '../../iceinfo/collocateProducts';
+import { readIceInfoProducts } from '../iceinfo/useIceInfo';
 import { slug, stamp } from './download';
 
 export const EXPORT_KINDS = ['log', 'geojson', 'csv', 'ndjson', 'zip'] as const;
@@ -47,6 +50,17 @@ export async function piecesToBlob(pieces: AsyncIterable<string>, type: string, 
   return new Blob([blob, ...pending], { type });
 }
 
+/**
+ * The flat exports' options: with the switched-on charts and grids collocated (the map's and the
+ * Review's values), so their derived columns follow every other column, as `convert --chart/--grid`
+ * writes them; without any switched on, the columns are left out altogether.
+ */
+async function flatOptions(bundle: LogBundle, includeDeleted: boolean): Promise<FlatOptions> {
+  const { charts, grids, settings } = await readIceInfoProducts();
+  if (charts.length === 0 && grids.length === 0) return { includeDeleted };
+  return { includeDeleted, collocation: collocateProducts(bundle.observations, charts, grids, settings) };
+}
+
 export async function buildExport(cruiseId: string, kind: ExportKind, opts: { includeDeleted?: boolean } = {}): Promise<{ blob: Blob; fileName: string }> {
   if (kind === 'log') {
     // The full log streams out of the store; the other forms still read the cruise whole.
@@ -55,7 +69,7 @@ export async function buildExport(cruiseId: string, kind: ExportKind, opts: { in
     return { blob, fileName: `${slug(cruise?.name ?? 'cruise')}-${stamp()}.${EXT.log}` };
   }
   const { bundle, photos } = await readCruiseExport(cruiseId, { photoBytes: kind === 'zip' });
-  const flat = { includeDeleted: opts.includeDeleted === true };
+  const flat = kind === 'zip' ? {} : await flatOptions(bundle, opts.includeDeleted === true);
   let parts: BlobPart[];
   if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
   else if (kind === 'csv') parts = writeCsv(bundle, flat);
