@@ -2,6 +2,11 @@ import { describe, expect, it } from 'vitest';
 import {
   agreement,
   agreementFigures,
+  agreementScatter,
+  agreementSeries,
+  disagreementFindings,
+  withDisagreements,
+  type Collocation,
   chartPairs,
   collocate,
   GRID_FLAG,
@@ -151,5 +156,54 @@ describe('agreement figures', () => {
     expect(a.byRegime['open-water'].count).toBe(1);
     expect(a.byObserver.ob2?.meanDifference).toBe(-2);
     expect(agreementFigures([]).meanDifference).toBeNull();
+  });
+});
+
+describe('the largest disagreements as Review findings, and the plots of the pairs', () => {
+  const pair = (id: string, hour: number, observed: number, product: number): AgreementPair => ({ observationId: id, time: `2026-03-03T${String(hour).padStart(2, '0')}:00:00Z`, observerId: 'ob1', observed, product, difference: observed - product });
+  // Chart pairs: differences 0, +1, -3 (CT 46 read as 5/10, the middle of 4-6: WMO/TD-No. 1214),
+  // +2.5; grid pairs (bilinear): +2.0 exactly and -6.5.
+  const chart = [pair('a', 1, 9, 9), pair('b', 2, 9, 8), pair('c', 3, 2, 5), pair('d', 4, 10, 7.5)];
+  const grid = [pair('a', 1, 9, 7), pair('e', 5, 1, 7.5)];
+  const coll = new Map<string, Collocation>([
+    ['c', { observationId: 'c', chart: { chartId: 'k', sourceName: 'Test chart', chartTime: '2026-03-03T00:00:00Z', hoursApart: 3, polygonIndex: 0, polyType: 'I', concentration: readConcentrationCode('46'), ctCode: '46', stage: null, saCode: null }, grid: null }],
+  ]);
+  const report = { chart: agreement(chart), grid: agreement(grid), gridMethod: 'bilinear' as const };
+  const reviewed = { reviews: [{ code: 'grid-disagreement', path: 'totalConcentration', comment: 'Melt ponds fooled the sensor.', by: 'Chief', at: '2026-03-04T00:00:00Z' }] };
+
+  it('lists the pairs more than 2/10 apart, largest first per product, with their reviews', () => {
+    const f = disagreementFindings(report, coll, new Map([['e', reviewed]]));
+    // |2.0| is not beyond 2/10 (the agreement table counts it within 2/10): only c, d and e.
+    expect(f.map((x) => [x.code, x.observationId, x.severity, x.path])).toEqual([
+      ['chart-disagreement', 'c', 'info', 'totalConcentration'],
+      ['chart-disagreement', 'd', 'info', 'totalConcentration'],
+      ['grid-disagreement', 'e', 'info', 'totalConcentration'],
+    ]);
+    expect(f[0]?.message).toBe('Observed 2/10, chart "Test chart" (valid 2026-03-03T00:00:00Z) CT 46, read as 5/10: difference -3.0 tenths.');
+    expect(f[1]?.message).toContain('difference +2.5 tenths');
+    expect(f[2]?.message).toContain('75 % (bilinear): difference -6.5 tenths');
+    expect(f[2]?.review?.comment).toBe('Melt ponds fooled the sensor.');
+    expect(f[0]?.review).toBeNull();
+    expect(new Set(f.map((x) => x.key)).size).toBe(3);
+  });
+
+  it('merges them into the rule findings in time order', () => {
+    const f = disagreementFindings(report, coll, new Map());
+    const rule = { severity: 'warning' as const, code: 'x', path: 'p', message: 'm', observationId: 'z', time: '2026-03-03T03:30:00Z', observerId: 'ob1', scope: 'observation' as const, key: 'z|x|p', review: null };
+    expect(withDisagreements([rule], f).map((x) => x.observationId)).toEqual(['c', 'z', 'd', 'e']);
+    expect(withDisagreements([rule], [])).toEqual([rule]);
+  });
+
+  it('lays the pairs out for the scatter (by product value) and the time series (by time)', () => {
+    const s = agreementScatter(chart, grid);
+    expect(s.product).toEqual([5, 7, 7.5, 7.5, 8, 9]);
+    expect(s.chartObserved).toEqual([2, null, 10, null, 9, 9]);
+    expect(s.gridObserved).toEqual([null, 9, null, 1, null, null]);
+    const t = agreementSeries(chart, grid);
+    // 2026-03-03T01:00:00Z is 1,772,499,600 s after 1970 (Date.UTC by hand: 20,515 days + 1 h).
+    expect(t.time[0]).toBe(1_772_499_600);
+    expect(t.time).toHaveLength(6);
+    expect(t.chartDifference).toEqual([0, null, 1, -3, 2.5, null]);
+    expect(t.gridDifference).toEqual([null, 2, null, null, null, -6.5]);
   });
 });
