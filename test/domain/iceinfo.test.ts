@@ -5,6 +5,7 @@ import {
   agreementScatter,
   agreementSeries,
   disagreementFindings,
+  locateInChart,
   withDisagreements,
   type Collocation,
   chartPairs,
@@ -205,5 +206,35 @@ describe('the largest disagreements as Review findings, and the plots of the pai
     expect(t.time).toHaveLength(6);
     expect(t.chartDifference).toEqual([0, null, 1, -3, 2.5, null]);
     expect(t.gridDifference).toEqual([null, 2, null, null, null, -6.5]);
+  });
+});
+
+describe('the polygon index of a chart', () => {
+  it('finds the same first polygon as a scan of every polygon, across the antimeridian and on edges', () => {
+    // Overlapping boxes and triangles, some written with longitudes past 180 (170..190), some
+    // from -180; points on a lattice that hits their edges and corners exactly.
+    const polygons: ChartLocator['chart']['polygons'] = [];
+    for (let k = 0; k < 300; k++) {
+      const lon = -180 + ((k * 37) % 380);
+      const lat = 60 + ((k * 7) % 25);
+      const w = 1 + (k % 7);
+      const h = 0.5 + (k % 5) * 0.5;
+      const ring = k % 3 === 0 ? [lon, lat, lon + w, lat, lon + w, lat + h, lon, lat] : [lon, lat, lon + w, lat, lon + w, lat + h, lon, lat + h, lon, lat];
+      polygons.push({ rings: [ring], bbox: ringBbox(ring), attributes: { POLY_TYPE: 'I', CT: '92', CA: null, SA: null, FA: null, CB: null, SB: null, FB: null, CC: null, SC: null, FC: null, CN: null, CD: null } });
+    }
+    const loc: ChartLocator = { chart: { id: 'k', sourceName: 's', chartTime: '2026-03-03T00:00:00Z', polygons, geographic: true }, toPlane: (lon, lat) => [lon, lat] };
+    const scan = (lon: number, lat: number) => {
+      const i = polygons.findIndex((p) => pointInPolygon(p.rings, p.bbox, lon, lat, true));
+      return i < 0 ? null : i;
+    };
+    let found = 0;
+    for (let lon = -180; lon <= 180; lon += 0.5) {
+      for (let lat = 59.5; lat <= 87; lat += 0.5) {
+        const want = scan(lon, lat);
+        if (want !== null) found++;
+        expect(locateInChart(loc, lon, lat)).toBe(want);
+      }
+    }
+    expect(found).toBeGreaterThan(1000);
   });
 });
