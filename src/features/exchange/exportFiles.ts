@@ -16,7 +16,7 @@ export type ExportKind = (typeof EXPORT_KINDS)[number];
 export const EXPORT_LABELS: Record<ExportKind, { label: string; hint: string }> = {
   log: { label: 'Full log (JSON)', hint: 'Everything, with revisions and conflict copies; readable by Floe Ledger and any JSON tool.' },
   geojson: { label: 'GeoJSON', hint: 'Observations as points, the track as a line, for GIS.' },
-  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice type, then deformation and snow blocks, for spreadsheets and R.' },
+  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice type, then deformation and snow blocks, for spreadsheets and R. With ice charts or grids switched on, their values at each observation come last (derived, not observed).' },
   ndjson: { label: 'NDJSON', hint: 'One observation record per line, for streaming tools.' },
   zip: { label: 'Archive with photos (zip)', hint: 'The full log and every photo, to hand over or archive.' },
 };
