@@ -2,6 +2,12 @@ import { describe, expect, it } from 'vitest';
 import {
   agreement,
   agreementFigures,
+  agreementScatter,
+  agreementSeries,
+  disagreementFindings,
+  locateInChart,
+  withDisagreements,
+  type Collocation,
   chartPairs,
   collocate,
   GRID_FLAG,
@@ -151,5 +157,84 @@ describe('agreement figures', () => {
     expect(a.byRegime['open-water'].count).toBe(1);
     expect(a.byObserver.ob2?.meanDifference).toBe(-2);
     expect(agreementFigures([]).meanDifference).toBeNull();
+  });
+});
+
+describe('the largest disagreements as Review findings, and the plots of the pairs', () => {
+  const pair = (id: string, hour: number, observed: number, product: number): AgreementPair => ({ observationId: id, time: `2026-03-03T${String(hour).padStart(2, '0')}:00:00Z`, observerId: 'ob1', observed, product, difference: observed - product });
+  // Chart pairs: differences 0, +1, -3 (CT 46 read as 5/10, the middle of 4-6: WMO/TD-No. 1214),
+  // +2.5; grid pairs (bilinear): +2.0 exactly and -6.5.
+  const chart = [pair('a', 1, 9, 9), pair('b', 2, 9, 8), pair('c', 3, 2, 5), pair('d', 4, 10, 7.5)];
+  const grid = [pair('a', 1, 9, 7), pair('e', 5, 1, 7.5)];
+  const coll = new Map<string, Collocation>([
+    ['c', { observationId: 'c', chart: { chartId: 'k', sourceName: 'Test chart', chartTime: '2026-03-03T00:00:00Z', hoursApart: 3, polygonIndex: 0, polyType: 'I', concentration: readConcentrationCode('46'), ctCode: '46', stage: null, saCode: null }, grid: null }],
+  ]);
+  const report = { chart: agreement(chart), grid: agreement(grid), gridMethod: 'bilinear' as const };
+  const reviewed = { reviews: [{ code: 'grid-disagreement', path: 'totalConcentration', comment: 'Melt ponds fooled the sensor.', by: 'Chief', at: '2026-03-04T00:00:00Z' }] };
+
+  it('lists the pairs more than 2/10 apart, largest first per product, with their reviews', () => {
+    const f = disagreementFindings(report, coll, new Map([['e', reviewed]]));
+    // |2.0| is not beyond 2/10 (the agreement table counts it within 2/10): only c, d and e.
+    expect(f.map((x) => [x.code, x.observationId, x.severity, x.path])).toEqual([
+      ['chart-disagreement', 'c', 'info', 'totalConcentration'],
+      ['chart-disagreement', 'd', 'info', 'totalConcentration'],
+      ['grid-disagreement', 'e', 'info', 'totalConcentration'],
+    ]);
+    expect(f[0]?.message).toBe('Observed 2/10, chart "Test chart" (valid 2026-03-03T00:00:00Z) CT 46, read as 5/10: difference -3.0 tenths.');
+    expect(f[1]?.message).toContain('difference +2.5 tenths');
+    expect(f[2]?.message).toContain('75 % (bilinear): difference -6.5 tenths');
+    expect(f[2]?.review?.comment).toBe('Melt ponds fooled the sensor.');
+    expect(f[0]?.review).toBeNull();
+    expect(new Set(f.map((x) => x.key)).size).toBe(3);
+  });
+
+  it('merges them into the rule findings in time order', () => {
+    const f = disagreementFindings(report, coll, new Map());
+    const rule = { severity: 'warning' as const, code: 'x', path: 'p', message: 'm', observationId: 'z', time: '2026-03-03T03:30:00Z', observerId: 'ob1', scope: 'observation' as const, key: 'z|x|p', review: null };
+    expect(withDisagreements([rule], f).map((x) => x.observationId)).toEqual(['c', 'z', 'd', 'e']);
+    expect(withDisagreements([rule], [])).toEqual([rule]);
+  });
+
+  it('lays the pairs out for the scatter (by product value) and the time series (by time)', () => {
+    const s = agreementScatter(chart, grid);
+    expect(s.product).toEqual([5, 7, 7.5, 7.5, 8, 9]);
+    expect(s.chartObserved).toEqual([2, null, 10, null, 9, 9]);
+    expect(s.gridObserved).toEqual([null, 9, null, 1, null, null]);
+    const t = agreementSeries(chart, grid);
+    // 2026-03-03T01:00:00Z is 1,772,499,600 s after 1970 (Date.UTC by hand: 20,515 days + 1 h).
+    expect(t.time[0]).toBe(1_772_499_600);
+    expect(t.time).toHaveLength(6);
+    expect(t.chartDifference).toEqual([0, null, 1, -3, 2.5, null]);
+    expect(t.gridDifference).toEqual([null, 2, null, null, null, -6.5]);
+  });
+});
+
+describe('the polygon index of a chart', () => {
+  it('finds the same first polygon as a scan of every polygon, across the antimeridian and on edges', () => {
+    // Overlapping boxes and triangles, some written with longitudes past 180 (170..190), some
+    // from -180; points on a lattice that hits their edges and corners exactly.
+    const polygons: ChartLocator['chart']['polygons'] = [];
+    for (let k = 0; k < 300; k++) {
+      const lon = -180 + ((k * 37) % 380);
+      const lat = 60 + ((k * 7) % 25);
+      const w = 1 + (k % 7);
+      const h = 0.5 + (k % 5) * 0.5;
+      const ring = k % 3 === 0 ? [lon, lat, lon + w, lat, lon + w, lat + h, lon, lat] : [lon, lat, lon + w, lat, lon + w, lat + h, lon, lat + h, lon, lat];
+      polygons.push({ rings: [ring], bbox: ringBbox(ring), attributes: { POLY_TYPE: 'I', CT: '92', CA: null, SA: null, FA: null, CB: null, SB: null, FB: null, CC: null, SC: null, FC: null, CN: null, CD: null } });
+    }
+    const loc: ChartLocator = { chart: { id: 'k', sourceName: 's', chartTime: '2026-03-03T00:00:00Z', polygons, geographic: true }, toPlane: (lon, lat) => [lon, lat] };
+    const scan = (lon: number, lat: number) => {
+      const i = polygons.findIndex((p) => pointInPolygon(p.rings, p.bbox, lon, lat, true));
+      return i < 0 ? null : i;
+    };
+    let found = 0;
+    for (let lon = -180; lon <= 180; lon += 0.5) {
+      for (let lat = 59.5; lat <= 87; lat += 0.5) {
+        const want = scan(lon, lat);
+        if (want !== null) found++;
+        expect(locateInChart(loc, lon, lat)).toBe(want);
+      }
+    }
+    expect(found).toBeGreaterThan(1000);
   });
 });

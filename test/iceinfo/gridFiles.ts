@@ -6,6 +6,7 @@ import h5wasm from 'h5wasm/node';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { writeClassicNetcdf, type NcVariable } from './netcdfClassic';
 
 export const W = 6;
 export const H = 5;
@@ -49,6 +50,76 @@ export interface Nc4Options {
   hugeShape?: [number, number];
 }
 
+/** The grid's values as the NetCDF files store them: percent x 100, flags 2510/2530/2540, fill -32767. */
+function storedRows(opts: Nc4Options): number[] {
+  const raw = PERCENT.map((p) => (p === 251 ? 2510 : p === 253 ? 2530 : p === 254 ? 2540 : p === 255 ? -32767 : p * 100));
+  return opts.southFirst ? Array.from({ length: H }, (_, r) => raw.slice((H - 1 - r) * W, (H - r) * W)).flat() : raw;
+}
+
+/** Cell-centre coordinates in km, y in the file's row order. */
+function axesKm(opts: Nc4Options): { xs: Float64Array; ys: Float64Array } {
+  return {
+    xs: Float64Array.from({ length: W }, (_, c) => centre(0, c)[0] / 1000),
+    ys: Float64Array.from({ length: H }, (_, r) => centre(opts.southFirst ? H - 1 - r : r, 0)[1] / 1000),
+  };
+}
+
+/**
+ * The same grid as a classic NetCDF file (CDF-1, or CDF-2 with 64-bit offsets), written by our
+ * writer after Unidata's NetCDF Classic Format Specification, with the same CF attributes as the
+ * NetCDF-4 file below. `hugeShape` declares dimensions far larger than the data that follows.
+ */
+export function gridNcClassic(opts: Nc4Options & { version?: 1 | 2 } = {}): Uint8Array {
+  const [rows, cols] = opts.hugeShape ?? [H, W];
+  const { xs, ys } = axesKm(opts);
+  const vars: NcVariable[] = [
+    {
+      name: 'ice_conc',
+      dims: ['y', 'x'],
+      type: 'short',
+      data: opts.hugeShape ? [0, 0] : storedRows(opts),
+      attrs: [
+        { name: 'standard_name', type: 'char', value: 'sea_ice_area_fraction' },
+        { name: 'units', type: 'char', value: '%' },
+        { name: 'scale_factor', type: 'double', value: [0.01] },
+        { name: '_FillValue', type: 'short', value: [-32767] },
+        { name: 'flag_values', type: 'short', value: [2510, 2530, 2540] },
+        { name: 'flag_meanings', type: 'char', value: 'pole_hole coast land' },
+        { name: 'grid_mapping', type: 'char', value: 'crs' },
+      ],
+    },
+    ...(opts.noCoordinates || opts.hugeShape
+      ? []
+      : [
+          { name: 'x', dims: ['x'], type: 'double', data: xs, attrs: [{ name: 'units', type: 'char', value: 'km' }] } satisfies NcVariable,
+          { name: 'y', dims: ['y'], type: 'double', data: ys, attrs: [{ name: 'units', type: 'char', value: 'km' }] } satisfies NcVariable,
+        ]),
+    { name: 'time', dims: ['time'], type: 'double', data: [20516.5], attrs: [{ name: 'units', type: 'char', value: 'days since 1970-01-01 00:00:00' }] },
+    {
+      name: 'crs',
+      dims: [],
+      type: 'int',
+      data: [0],
+      attrs: [
+        { name: 'grid_mapping_name', type: 'char', value: 'polar_stereographic' },
+        { name: 'latitude_of_projection_origin', type: 'double', value: [90] },
+        { name: 'straight_vertical_longitude_from_pole', type: 'double', value: [-45] },
+        { name: 'standard_parallel', type: 'double', value: [70] },
+      ],
+    },
+  ];
+  return writeClassicNetcdf({
+    version: opts.version ?? 1,
+    dims: [
+      { name: 'y', size: rows },
+      { name: 'x', size: cols },
+      { name: 'time', size: 1 },
+    ],
+    attrs: [{ name: 'Conventions', type: 'char', value: 'CF-1.7' }],
+    vars,
+  });
+}
+
 /**
  * A NetCDF-4 file as h5wasm writes it: `ice_conc` (short, scale 0.01 -> percent, _FillValue -32767,
  * flag_values 2510 2530 2540 for pole hole / coast / land as CF flag_meanings), `x`, `y` in km,
@@ -60,8 +131,7 @@ export async function gridNc4(opts: Nc4Options = {}): Promise<Uint8Array> {
   const path = join(dir, 'grid.nc');
   try {
     const f = new h5wasm.File(path, 'w');
-    const raw = PERCENT.map((p) => (p === 251 ? 2510 : p === 253 ? 2530 : p === 254 ? 2540 : p === 255 ? -32767 : p * 100));
-    const rows = opts.southFirst ? Array.from({ length: H }, (_, r) => raw.slice((H - 1 - r) * W, (H - r) * W)).flat() : raw;
+    const rows = storedRows(opts);
     const shape = opts.hugeShape ?? [H, W];
     const conc = opts.hugeShape
       ? f.create_dataset({ name: 'ice_conc', data: new Int16Array(4), shape: [2, 2], maxshape: [null, null], chunks: [2, 2], dtype: '<h' })
@@ -75,8 +145,7 @@ export async function gridNc4(opts: Nc4Options = {}): Promise<Uint8Array> {
     conc.create_attribute('flag_meanings', 'pole_hole coast land');
     conc.create_attribute('grid_mapping', 'crs');
     if (!opts.noCoordinates) {
-      const xs = Float64Array.from({ length: W }, (_, c) => centre(0, c)[0] / 1000);
-      const ys = Float64Array.from({ length: H }, (_, r) => centre(opts.southFirst ? H - 1 - r : r, 0)[1] / 1000);
+      const { xs, ys } = axesKm(opts);
       f.create_dataset({ name: 'x', data: xs }).create_attribute('units', 'km');
       f.create_dataset({ name: 'y', data: ys }).create_attribute('units', 'km');
     }

@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { collocate, GRID_FLAG, sampleGrid } from '../../src/domain/collocation';
 import { nodeHdf5 } from '../../src/cli/hdf5Node';
-import { readGridFile, type GridMeta } from '../../src/iceinfo/gridRead';
+import { readGridFile, type GridMeta, type GridReadResult } from '../../src/iceinfo/gridRead';
 import { ICEINFO_LIMITS } from '../../src/iceinfo/limits';
 import { KNOWN_GRID_CRS, planeOf } from '../../src/iceinfo/projections';
-import { centre, gridNc4, gridTiff, H, PERCENT, W } from './gridFiles';
+import { centre, gridNc4, gridNcClassic, gridTiff, H, PERCENT, W } from './gridFiles';
+import { writeClassicNetcdf } from './netcdfClassic';
 
 const meta = (over: Partial<GridMeta> = {}): GridMeta => ({ id: 'g1', sourceName: 'Frostwren test grid', gridTime: '2026-03-04T12:00:00Z', fileName: 'grid.tif', importedAt: '2026-03-05T00:00:00Z', ...over });
 const plane = planeOf(KNOWN_GRID_CRS[3413]!.proj4);
@@ -42,15 +43,19 @@ async function writeUint16Tiff(values: number[]): Promise<Uint8Array> {
   return new Uint8Array(await writeArrayBuffer(Uint16Array.from(values), { width: W, height: H, ModelPixelScale: [CELL, CELL, 0], ModelTiepoint: [0, 0, 0, LEFT, TOP, 0], GTModelTypeGeoKey: 1, ProjectedCSTypeGeoKey: 3413 } as never));
 }
 
+/** The NetCDF files' grid (gridFiles.ts) as read: cells, CF flags and fill, scale, km axes, time. */
+function expectKnownCfGrid({ grid, counts }: GridReadResult): void {
+  expect(grid.epsg).toBe(3413);
+  expect(Array.from(grid.cells)).toEqual(PERCENT);
+  expect(counts).toMatchObject({ poleHole: 2, coast: 1, land: 2, missing: 1 });
+  // 20516.5 days after 1970-01-01 is 2026-03-04T12:00Z (20516 = 56 years of 365 days + 14 leap days + 62 days).
+  expect(grid.gridTime).toBe('2026-03-04T12:00:00Z');
+  expect([grid.x0, grid.y0, grid.dx, grid.dy]).toEqual([...centre(0, 0), 25_000, -25_000]);
+}
+
 describe('NetCDF-4 grid (written with h5wasm, CF attributes)', () => {
   it('reads cells, CF flags, fill value, scale, km coordinates and the time variable', async () => {
-    const { grid, counts } = await readGridFile(await gridNc4(), meta({ gridTime: undefined, fileName: 'grid.nc' }), nodeHdf5);
-    expect(grid.epsg).toBe(3413);
-    expect(Array.from(grid.cells)).toEqual(PERCENT);
-    expect(counts).toMatchObject({ poleHole: 2, coast: 1, land: 2, missing: 1 });
-    // 20516.5 days after 1970-01-01 is 2026-03-04T12:00Z (20516 = 56 years of 365 days + 14 leap days + 62 days).
-    expect(grid.gridTime).toBe('2026-03-04T12:00:00Z');
-    expect([grid.x0, grid.y0, grid.dx, grid.dy]).toEqual([...centre(0, 0), 25_000, -25_000]);
+    expectKnownCfGrid(await readGridFile(await gridNc4(), meta({ gridTime: undefined, fileName: 'grid.nc' }), nodeHdf5));
   });
   it('turns a grid stored south row first', async () => {
     const { grid } = await readGridFile(await gridNc4({ southFirst: true }), meta({ fileName: 'grid.nc' }), nodeHdf5);
@@ -65,6 +70,43 @@ describe('NetCDF-4 grid (written with h5wasm, CF attributes)', () => {
   });
   it('says so when NetCDF-4 cannot be read here (no HDF5 reader given)', async () => {
     await expect(readGridFile(await gridNc4(), meta({ fileName: 'grid.nc' }))).rejects.toThrow(/grid\.nc is NetCDF-4 \/ HDF5, which this program cannot read here/);
+  });
+});
+
+describe('classic NetCDF grid (written by our CDF-1/CDF-2 writer, read with netcdfjs)', () => {
+  it('writes the header as the NetCDF Classic Format Specification lays it out', () => {
+    // magic "CDF" 1, numrecs 0, NC_DIMENSION (10) with 1 dimension "x" (length 1, name padded to
+    // 4 bytes) of size 2, ABSENT global attributes (two zero words), NC_VARIABLE (11) with one
+    // variable "v": 1 dimension (id 0), ABSENT attributes, NC_SHORT (3), vsize 4, begin 80 (the
+    // magic and 19 words of header), then the data 1, -2 as big-endian shorts.
+    const b = writeClassicNetcdf({ version: 1, dims: [{ name: 'x', size: 2 }], vars: [{ name: 'v', dims: ['x'], type: 'short', data: [1, -2] }] });
+    const words = Array.from({ length: b.length / 4 }, (_, i) => new DataView(b.buffer, b.byteOffset).getInt32(i * 4));
+    expect(Array.from(b.slice(0, 4))).toEqual([0x43, 0x44, 0x46, 1]);
+    expect(words.slice(1)).toEqual([0, 10, 1, 1, 0x78000000, 2, 0, 0, 11, 1, 1, 0x76000000, 1, 0, 0, 0, 3, 4, 80, 0x0001fffe]);
+    // CDF-2 differs only in the magic's version byte and an 8-byte begin.
+    const b2 = writeClassicNetcdf({ version: 2, dims: [{ name: 'x', size: 2 }], vars: [{ name: 'v', dims: ['x'], type: 'short', data: [1, -2] }] });
+    expect(b2[3]).toBe(2);
+    expect(b2.length).toBe(b.length + 4);
+  });
+  it('reads cells, CF flags, fill value, scale, km coordinates and the time variable (CDF-1)', async () => {
+    expectKnownCfGrid(await readGridFile(gridNcClassic(), meta({ gridTime: undefined, fileName: 'grid.nc' })));
+  });
+  it('reads the 64-bit offset form (CDF-2) stored south row first, and locates a cell through the projection', async () => {
+    const { grid } = await readGridFile(gridNcClassic({ version: 2, southFirst: true }), meta({ fileName: 'grid64.nc' }));
+    expect(Array.from(grid.cells)).toEqual(PERCENT);
+    expect(grid.y0).toBe(centre(0, 0)[1]);
+    // Row 3, column 0 holds 40 %: an observation at that cell's centre gets 40.
+    const [lon, lat] = plane.toLonLat(...centre(3, 0)) as [number, number];
+    const c = collocate([{ id: 'o', time: '2026-03-04T12:00:00Z', position: { lat, lon, source: 'manual' } }], [], [{ grid, toPlane: plane.toPlane }]);
+    expect(c.get('o')?.grid?.sample).toMatchObject({ kind: 'value', nearestPercent: 40 });
+  });
+  it('refuses a classic NetCDF without coordinates, one with absurd dimensions, and a broken one', async () => {
+    await expect(readGridFile(gridNcClassic({ noCoordinates: true }), meta({ fileName: 'nocoord.nc' }))).rejects.toThrow(/nocoord\.nc has no x coordinate variable .* the grid cannot be placed/);
+    await expect(readGridFile(gridNcClassic({ hugeShape: [60_000, 60_000] }), meta({ fileName: 'huge.nc' }))).rejects.toThrow(
+      new RegExp(`huge\\.nc: the grid has 60000 x 60000 cells, more than this program reads \\(at most ${ICEINFO_LIMITS.maxGridCells.toLocaleString('en')} cells`),
+    );
+    const cut = gridNcClassic().slice(0, 40);
+    await expect(readGridFile(cut, meta({ fileName: 'cut.nc' }))).rejects.toThrow(/cut\.nc: the NetCDF file cannot be read/);
   });
 });
 

@@ -77,8 +77,10 @@ export interface ConcentrationGrid {
   cells: Uint8Array;
 }
 
+// The flag name of every byte above 100, looked up once (sampling meets a flag per coast cell).
+const FLAG_BY_BYTE = new Map<number, GridFlagName>((Object.entries(GRID_FLAG) as [GridFlagName, number][]).map(([k, v]) => [v, k]));
+
 export function flagName(cell: number): GridFlagName | null {
   if (cell <= GRID_MAX_PERCENT) return null;
-  for (const [k, v] of Object.entries(GRID_FLAG) as [GridFlagName, number][]) if (v === cell) return k;
-  return 'unknownFlag';
+  return FLAG_BY_BYTE.get(cell) ?? 'unknownFlag';
 }

@@ -6,6 +6,7 @@ import type { IsoUtc, Observation, StageKey } from '../model.ts';
 import type { ChartPolygon, ConcentrationGrid, IceChart } from './chartModel.ts';
 import { sampleGrid, type GridSample } from './gridSample.ts';
 import { pointInPolygon } from './polygon.ts';
+import { candidates, polygonIndex } from './polygonIndex.ts';
 import { readConcentrationCode, readPolyType, readStageCode, type ChartConcentration, type PolyType } from './sigrid3.ts';
 
 /** Longitude/latitude (WGS 84 degrees) to the product's plane; null where undefined. */
@@ -64,8 +65,8 @@ export interface Collocation {
 
 const ms = (t: IsoUtc): number => Date.parse(t);
 
-/** The item nearest in time within maxHours (ties: the later one), by binary search. */
-function nearestInTime<T>(sorted: readonly { t: number; item: T }[], t: number, maxHours: number): { item: T; hours: number } | null {
+/** Index of the item nearest in time within maxHours (ties: the later one), by binary search; -1 if none. */
+function nearestInTime(sorted: readonly { t: number }[], t: number, maxHours: number): number {
   let lo = 0;
   let hi = sorted.length;
   while (lo < hi) {
@@ -73,26 +74,46 @@ function nearestInTime<T>(sorted: readonly { t: number; item: T }[], t: number, 
     if ((sorted[mid] as { t: number }).t <= t) lo = mid + 1;
     else hi = mid;
   }
-  let best: { item: T; hours: number } | null = null;
+  let best = -1;
+  let bestHours = 0;
   for (let i = lo - 1; i <= lo; i++) {
     const c = sorted[i];
     if (!c) continue;
     const hours = (t - c.t) / 3_600_000;
     if (Math.abs(hours) > maxHours) continue;
-    if (!best || Math.abs(hours) < Math.abs(best.hours) || (Math.abs(hours) === Math.abs(best.hours) && hours < best.hours)) best = { item: c.item, hours };
+    if (best < 0 || Math.abs(hours) < Math.abs(bestHours) || (Math.abs(hours) === Math.abs(bestHours) && hours < bestHours)) {
+      best = i;
+      bestHours = hours;
+    }
   }
   return best;
 }
+
+const hoursFrom = (t: number, item: { t: number }) => (t - item.t) / 3_600_000;
 
 export function locateInChart(loc: ChartLocator, lon: number, lat: number): number | null {
   const p = loc.toPlane(lon, lat);
   if (!p) return null;
   const polys = loc.chart.polygons;
-  for (let i = 0; i < polys.length; i++) {
-    const poly = polys[i];
-    if (poly && pointInPolygon(poly.rings, poly.bbox, p[0], p[1], loc.chart.geographic)) return i;
+  const ix = polygonIndex(polys);
+  const geo = loc.chart.geographic;
+  // A geographic ring may be written past 180 degrees: the point is also looked up a turn away
+  // (pointInPolygon tries those longitudes itself); the smallest index found wins, as in a scan.
+  let best = firstContaining(polys, candidates(ix, p[0], p[1]), p[0], p[1], geo, Infinity);
+  if (geo) {
+    best = firstContaining(polys, candidates(ix, p[0] - 360, p[1]), p[0], p[1], geo, best);
+    best = firstContaining(polys, candidates(ix, p[0] + 360, p[1]), p[0], p[1], geo, best);
   }
-  return null;
+  return best === Infinity ? null : best;
+}
+
+function firstContaining(polys: IceChart['polygons'], list: readonly number[], x: number, y: number, geographic: boolean, below: number): number {
+  for (const i of list) {
+    if (i >= below) return below;
+    const poly = polys[i];
+    if (poly && pointInPolygon(poly.rings, poly.bbox, x, y, geographic)) return i;
+  }
+  return below;
 }
 
 interface DecodedPolygon {
@@ -150,21 +171,23 @@ export function collocate(
     const pos = o.position;
     if (!pos) continue;
     const t = ms(o.time);
-    const c = nearestInTime(chartsByTime, t, opts.chartMaxHours);
-    const g = nearestInTime(gridsByTime, t, opts.gridMaxHours);
-    if (!c && !g) continue;
+    const ci = nearestInTime(chartsByTime, t, opts.chartMaxHours);
+    const gi = nearestInTime(gridsByTime, t, opts.gridMaxHours);
+    if (ci < 0 && gi < 0) continue;
     let grid: GridMatch | null = null;
-    if (g) {
+    if (gi >= 0) {
+      const g = gridsByTime[gi] as { t: number; item: GridLocator };
       const p = g.item.toPlane(pos.lon, pos.lat);
       grid = {
         gridId: g.item.grid.id,
         sourceName: g.item.grid.sourceName,
         gridTime: g.item.grid.gridTime,
-        hoursApart: g.hours,
+        hoursApart: hoursFrom(t, g),
         sample: p ? sampleGrid(g.item.grid, p[0], p[1]) : { kind: 'outside' },
       };
     }
-    out.set(o.id, { observationId: o.id, chart: c ? chartMatch(c.item, pos.lon, pos.lat, c.hours) : null, grid });
+    const c = ci >= 0 ? (chartsByTime[ci] as { t: number; item: ChartLocator }) : null;
+    out.set(o.id, { observationId: o.id, chart: c ? chartMatch(c.item, pos.lon, pos.lat, hoursFrom(t, c)) : null, grid });
   }
   return out;
 }

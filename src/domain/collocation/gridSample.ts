@@ -14,6 +14,13 @@ export type GridSample =
   | { kind: 'flag'; flag: GridFlagName; row: number; col: number }
   | { kind: 'outside' };
 
+/** The percent of a cell, or -1 where it is off the grid or flagged. */
+function validAt(g: GridGeometry, r: number, c: number): number {
+  if (r < 0 || c < 0 || r >= g.height || c >= g.width) return -1;
+  const v = g.cells[r * g.width + c] as number;
+  return v > GRID_MAX_PERCENT ? -1 : v;
+}
+
 export function sampleGrid(g: GridGeometry, x: number, y: number): GridSample {
   const fc = (x - g.x0) / g.dx;
   const fr = (y - g.y0) / g.dy;
@@ -27,19 +34,33 @@ export function sampleGrid(g: GridGeometry, x: number, y: number): GridSample {
   const r0 = Math.floor(fr);
   const tx = fc - c0;
   const ty = fr - r0;
+  // The four neighbours, unrolled without a closure or an array (this runs once per observation,
+  // 50,000 times in a review, and the garbage of a closure a call showed in the profile).
+  const w00 = (1 - tx) * (1 - ty);
+  const w01 = tx * (1 - ty);
+  const w10 = (1 - tx) * ty;
+  const w11 = tx * ty;
+  const v00 = validAt(g, r0, c0);
+  const v01 = validAt(g, r0, c0 + 1);
+  const v10 = validAt(g, r0 + 1, c0);
+  const v11 = validAt(g, r0 + 1, c0 + 1);
   let sum = 0;
   let wsum = 0;
-  // The four neighbours, unrolled (this runs once per observation, 50,000 times in a review).
-  const add = (r: number, c: number, w: number) => {
-    if (w === 0 || r < 0 || c < 0 || r >= g.height || c >= g.width) return;
-    const v = g.cells[r * g.width + c] as number;
-    if (v > GRID_MAX_PERCENT) return;
-    sum += w * v;
-    wsum += w;
-  };
-  add(r0, c0, (1 - tx) * (1 - ty));
-  add(r0, c0 + 1, tx * (1 - ty));
-  add(r0 + 1, c0, (1 - tx) * ty);
-  add(r0 + 1, c0 + 1, tx * ty);
+  if (w00 > 0 && v00 >= 0) {
+    sum += w00 * v00;
+    wsum += w00;
+  }
+  if (w01 > 0 && v01 >= 0) {
+    sum += w01 * v01;
+    wsum += w01;
+  }
+  if (w10 > 0 && v10 >= 0) {
+    sum += w10 * v10;
+    wsum += w10;
+  }
+  if (w11 > 0 && v11 >= 0) {
+    sum += w11 * v11;
+    wsum += w11;
+  }
   return { kind: 'value', nearestPercent: nearest, bilinearPercent: wsum > 0 ? sum / wsum : nearest, row, col };
 }

@@ -7,3 +7,5 @@ export * from './gridSample.ts';
 export * from './collocate.ts';
 export * from './agreement.ts';
 export * from './report.ts';
+export * from './disagreement.ts';
+export * from './agreementPlots.ts';

@@ -72,6 +72,6 @@ export function pointInPolygon(rings: readonly (readonly number[])[], bbox: read
   if (y < minY || y > maxY) return false;
   if (x >= minX && x <= maxX && pointInRings(rings, x, y)) return true;
   if (!geographic) return false;
-  for (const px of [x - 360, x + 360]) if (px >= minX && px <= maxX && pointInRings(rings, px, y)) return true;
-  return false;
+  if (x - 360 >= minX && x - 360 <= maxX && pointInRings(rings, x - 360, y)) return true;
+  return x + 360 >= minX && x + 360 <= maxX && pointInRings(rings, x + 360, y);
 }

@@ -4,7 +4,10 @@ import { writeArchive } from '../../format/archive';
 import { writeCsv } from '../../format/csv';
 import { writeGeoJson } from '../../format/geojson';
 import { writeNdjson } from '../../format/ndjson';
-import { MEDIA_TYPE } from '../../format/types';
+import { MEDIA_TYPE, type LogBundle } from '../../format/types';
+import type { FlatOptions } from '../../format/flat';
+import { collocateProducts } from '../../iceinfo/collocateProducts';
+import { readIceInfoProducts } from '../iceinfo/useIceInfo';
 import { slug, stamp } from './download';
 
 export const EXPORT_KINDS = ['log', 'geojson', 'csv', 'ndjson', 'zip'] as const;
@@ -13,7 +16,7 @@ export type ExportKind = (typeof EXPORT_KINDS)[number];
 export const EXPORT_LABELS: Record<ExportKind, { label: string; hint: string }> = {
   log: { label: 'Full log (JSON)', hint: 'Everything, with revisions and conflict copies; readable by Floe Ledger and any JSON tool.' },
   geojson: { label: 'GeoJSON', hint: 'Observations as points, the track as a line, for GIS.' },
-  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice type, then deformation and snow blocks, for spreadsheets and R.' },
+  csv: { label: 'CSV', hint: 'One row per observation, columns a/b/c per ice type, then deformation and snow blocks, for spreadsheets and R. With ice charts or grids switched on, their values at each observation come last (derived, not observed).' },
   ndjson: { label: 'NDJSON', hint: 'One observation record per line, for streaming tools.' },
   zip: { label: 'Archive with photos (zip)', hint: 'The full log and every photo, to hand over or archive.' },
 };
@@ -47,6 +50,17 @@ export async function piecesToBlob(pieces: AsyncIterable<string>, type: string, 
   return new Blob([blob, ...pending], { type });
 }
 
+/**
+ * The flat exports' options: with the switched-on charts and grids collocated (the map's and the
+ * Review's values), so their derived columns follow every other column, as `convert --chart/--grid`
+ * writes them; without any switched on, the columns are left out altogether.
+ */
+async function flatOptions(bundle: LogBundle, includeDeleted: boolean): Promise<FlatOptions> {
+  const { charts, grids, settings } = await readIceInfoProducts();
+  if (charts.length === 0 && grids.length === 0) return { includeDeleted };
+  return { includeDeleted, collocation: collocateProducts(bundle.observations, charts, grids, settings) };
+}
+
 export async function buildExport(cruiseId: string, kind: ExportKind, opts: { includeDeleted?: boolean } = {}): Promise<{ blob: Blob; fileName: string }> {
   if (kind === 'log') {
     // The full log streams out of the store; the other forms still read the cruise whole.
@@ -55,7 +69,7 @@ export async function buildExport(cruiseId: string, kind: ExportKind, opts: { in
     return { blob, fileName: `${slug(cruise?.name ?? 'cruise')}-${stamp()}.${EXT.log}` };
   }
   const { bundle, photos } = await readCruiseExport(cruiseId, { photoBytes: kind === 'zip' });
-  const flat = { includeDeleted: opts.includeDeleted === true };
+  const flat = kind === 'zip' ? {} : await flatOptions(bundle, opts.includeDeleted === true);
   let parts: BlobPart[];
   if (kind === 'geojson') parts = writeGeoJson(bundle, flat);
   else if (kind === 'csv') parts = writeCsv(bundle, flat);

@@ -3,9 +3,9 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { useMemo } from 'react';
 import { getSetting, listIceCharts, listIceGrids, type IceChartRow, type IceGridRow } from '../../db';
-import { collocate, DEFAULT_COLLOCATION, type Collocation, type CollocationOptions, type GridMethod, type ProductNote } from '../../domain/collocation';
+import { DEFAULT_COLLOCATION, type Collocation, type CollocationOptions, type GridMethod, type ProductNote } from '../../domain/collocation';
 import type { Observation } from '../../domain/model';
-import { planeOf } from '../../iceinfo/projections';
+import { collocateProducts } from '../../iceinfo/collocateProducts';
 
 export interface IceInfoSettings extends CollocationOptions {
   gridMethod: GridMethod;
@@ -15,6 +15,12 @@ export const DEFAULT_ICEINFO_SETTINGS: IceInfoSettings = { ...DEFAULT_COLLOCATIO
 
 const NONE_C: IceChartRow[] = [];
 const NONE_G: IceGridRow[] = [];
+
+/** The switched-on charts and grids and the user's limits, read once (for an export). */
+export async function readIceInfoProducts(): Promise<{ charts: IceChartRow[]; grids: IceGridRow[]; settings: IceInfoSettings }> {
+  const [charts, grids, settings] = await Promise.all([listIceCharts(), listIceGrids(), getSetting('iceInfoCollocation')]);
+  return { charts: charts.filter((c) => c.visible), grids: grids.filter((g) => g.visible), settings: settings ?? DEFAULT_ICEINFO_SETTINGS };
+}
 
 export function useIceInfoProducts(): { charts: IceChartRow[]; grids: IceGridRow[]; settings: IceInfoSettings } {
   const charts = useLiveQuery(async () => (await listIceCharts()).filter((c) => c.visible), []) ?? NONE_C;
@@ -35,12 +41,7 @@ export function useCollocation(observations: readonly Observation[]): { collocat
   const { charts, grids, settings } = useIceInfoProducts();
   const collocation = useMemo(() => {
     if (charts.length === 0 && grids.length === 0) return new Map<string, Collocation>();
-    return collocate(
-      observations.filter((o) => !o.deleted),
-      charts.map((chart) => ({ chart, toPlane: planeOf(chart.crs).toPlane })),
-      grids.map((grid) => ({ grid, toPlane: planeOf(grid.crs).toPlane })),
-      settings,
-    );
+    return collocateProducts(observations, charts, grids, settings);
   }, [observations, charts, grids, settings]);
   return { collocation, charts, grids, settings };
 }

@@ -4,6 +4,7 @@ import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chart
 import { useNow } from '../log/useNow';
 import { productAge } from '../exchange/iceInfoAge';
 import { GRID_EDGE_PERCENT, gridColour, ICEINFO_PALETTES } from './iceInfoColours';
+import { gridBox } from './iceInfoLayers';
 import type { MapTheme } from './style';
 
 const css = (c: readonly number[]) => `rgb(${c[0]}, ${c[1]}, ${c[2]})`;
@@ -24,6 +25,7 @@ export function IceInfoLegend({ theme, charts, grids }: { theme: MapTheme; chart
         {grids.map((g) => (
           <li key={g.id}>
             Grid {g.sourceName}: valid {g.gridTime} ({productAge(g.gridTime, now)}), {Math.abs(g.dx) / 1000} km cells
+            {gridBox(g) === null && ', not drawn: it lies wholly beyond 85° of latitude, where the map tiles end (its values still reach the Review and the exports)'}
           </li>
         ))}
       </ul>

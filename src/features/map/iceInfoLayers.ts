@@ -75,8 +75,20 @@ export interface GridImage {
 const mercY = (lat: number) => Math.log(Math.tan(Math.PI / 4 + (lat * Math.PI) / 360));
 const latOfMercY = (y: number) => (360 / Math.PI) * Math.atan(Math.exp(y)) - 90;
 
-/** The grid's box in longitude/latitude, from points along its outer edge (and the pole). */
-export function gridBox(grid: ConcentrationGrid): { west: number; east: number; south: number; north: number } {
+export interface LonLatBox {
+  west: number;
+  east: number;
+  south: number;
+  north: number;
+}
+
+/**
+ * The grid's box in longitude/latitude, from points along its outer edge (and the pole), cut to
+ * the latitudes Web Mercator tiles reach; null when no part of the grid lies within them (a small
+ * grid round the pole), since MapLibre cannot place an image there: a box upside down made its
+ * image source throw while loading, which stopped the map's rendering before it reported idle.
+ */
+export function gridBox(grid: ConcentrationGrid): LonLatBox | null {
   const plane = planeOf(grid.crs);
   let south = 90;
   let north = -90;
@@ -109,12 +121,18 @@ export function gridBox(grid: ConcentrationGrid): { west: number; east: number; 
     if (pole[1] !== undefined && grid.epsg !== 3976 && grid.epsg !== 3412 && grid.epsg !== 6932) north = 90;
     else south = -90;
   }
-  return { west, east, south: Math.max(south, -MERCATOR_MAX_LAT), north: Math.min(north, MERCATOR_MAX_LAT) };
+  south = Math.max(south, -MERCATOR_MAX_LAT);
+  north = Math.min(north, MERCATOR_MAX_LAT);
+  return north > south && east > west ? { west, east, south, north } : null;
 }
 
-/** The grid resampled (nearest cell) into an image whose rows are evenly spaced in Web Mercator. */
-export function gridImage(grid: ConcentrationGrid, palette: IceInfoPalette, width = 1024): GridImage {
+/**
+ * The grid resampled (nearest cell) into an image whose rows are evenly spaced in Web Mercator;
+ * null when the grid lies wholly beyond the Mercator latitudes (see gridBox).
+ */
+export function gridImage(grid: ConcentrationGrid, palette: IceInfoPalette, width = 1024): GridImage | null {
   const box = gridBox(grid);
+  if (!box) return null;
   const yTop = mercY(box.north);
   const yBottom = mercY(box.south);
   const height = Math.max(16, Math.min(2048, Math.round((width * (yTop - yBottom)) / (((box.east - box.west) * Math.PI) / 180))));

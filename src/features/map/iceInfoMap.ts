@@ -73,12 +73,11 @@ export class IceInfoLayers {
 
   private async drawGrids(): Promise<void> {
     const run = ++this.run;
-    const images = await Promise.all(
-      this.grids.map(async (g) => {
-        const img = gridImage(g, ICEINFO_PALETTES[this.theme]);
-        return { id: g.id, url: await blobUrl(img), coordinates: img.coordinates };
-      }),
-    );
+    const drawn = this.grids.flatMap((g) => {
+      const img = gridImage(g, ICEINFO_PALETTES[this.theme]);
+      return img ? [{ id: g.id, img }] : [];
+    });
+    const images = await Promise.all(drawn.map(async ({ id, img }) => ({ id, url: await blobUrl(img), coordinates: img.coordinates })));
     if (run !== this.run) {
       for (const i of images) URL.revokeObjectURL(i.url);
       return;

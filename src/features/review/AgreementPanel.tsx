@@ -1,11 +1,15 @@
 // Observed total concentration against the stored ice charts and satellite grids: the figures of
 // src/domain/collocation (count, mean and RMS difference, share within 1/10 and 2/10) overall, by
-// ice regime and by observer, the largest differences, and the cautions beside them.
+// ice regime and by observer, the largest differences, the scatter and the time series, and the
+// cautions beside them. useAgreement also gives the largest disagreements as findings, which the
+// Review puts in its findings list.
 import { useMemo } from 'react';
-import { iceInfoReport, type Agreement, type AgreementFigures } from '../../domain/collocation';
+import { chartPairs, disagreementFindings, gridPairs, iceInfoReport, type Agreement, type AgreementFigures, type AgreementPair, type IceInfoReport } from '../../domain/collocation';
 import type { Cruise, Observation } from '../../domain/model';
+import type { ReviewFinding } from '../../domain/stats';
 import { ICE_REGIME_LABELS, ICE_REGIMES } from '../../domain/stats/regimes';
-import { productNotes, useCollocation } from '../iceinfo/useIceInfo';
+import { productNotes, useCollocation, type IceInfoSettings } from '../iceinfo/useIceInfo';
+import { AgreementCharts } from './AgreementCharts';
 
 const num = (x: number | null, d = 2) => (x === null ? '–' : x.toFixed(d));
 const pct = (x: number | null) => (x === null ? '–' : `${Math.round(x * 100)} %`);
@@ -68,16 +72,41 @@ function AgreementTable({ title, a, cruise, testId }: { title: string; a: Agreem
   );
 }
 
-export function AgreementPanel({ cruise, observations }: { cruise: Cruise; observations: Observation[] }) {
+export interface AgreementData {
+  report: IceInfoReport;
+  settings: IceInfoSettings;
+  chartPairs: AgreementPair[];
+  gridPairs: AgreementPair[];
+  /** The pairs more than 2/10 apart among the largest differences, as findings. */
+  findings: ReviewFinding[];
+}
+
+/** The agreement of a cruise with the switched-on charts and grids; null when none is. */
+export function useAgreement(observations: readonly Observation[]): AgreementData | null {
   const { collocation, charts, grids, settings } = useCollocation(observations);
-  const report = useMemo(() => iceInfoReport(observations, collocation, productNotes(charts, grids), settings, settings.gridMethod), [observations, collocation, charts, grids, settings]);
-  if (charts.length === 0 && grids.length === 0) return null;
+  return useMemo(() => {
+    if (charts.length === 0 && grids.length === 0) return null;
+    const report = iceInfoReport(observations, collocation, productNotes(charts, grids), settings, settings.gridMethod);
+    const byId = new Map(observations.map((o) => [o.id, o]));
+    return {
+      report,
+      settings,
+      chartPairs: chartPairs(observations, collocation),
+      gridPairs: gridPairs(observations, collocation, settings.gridMethod),
+      findings: disagreementFindings(report, collocation, byId),
+    };
+  }, [observations, collocation, charts, grids, settings]);
+}
+
+export function AgreementPanel({ cruise, data, theme }: { cruise: Cruise; data: AgreementData; theme: string }) {
+  const { report, settings } = data;
   return (
     <section aria-labelledby="agreement-title" className="review-section" data-testid="agreement-panel">
       <h3 id="agreement-title">Agreement with ice charts and satellite grids</h3>
       <p className="small">
         Observed total concentration minus the product's, in tenths. Charts: the middle of the chart's CT range, from the chart nearest in time within {settings.chartMaxHours} h.
         Grids: {settings.gridMethod === 'nearest' ? 'the nearest cell' : 'bilinear between the four nearest cells, flagged cells left out'}, within {settings.gridMaxHours} h.
+        Differences beyond 2/10 are also listed under Quality control.
       </p>
       <ul className="small">
         {report.products.map((p) => (
@@ -89,6 +118,7 @@ export function AgreementPanel({ cruise, observations }: { cruise: Cruise; obser
       </ul>
       <AgreementTable title="Observed minus ice chart" a={report.chart} cruise={cruise} testId="agreement-chart" />
       <AgreementTable title={`Observed minus satellite grid (${report.gridMethod})`} a={report.grid} cruise={cruise} testId="agreement-grid" />
+      {data.chartPairs.length + data.gridPairs.length > 0 && <AgreementCharts chart={data.chartPairs} grid={data.gridPairs} theme={theme} />}
       <ul className="agreement-cautions">
         {report.cautions.map((c) => (
           <li key={c}>{c}</li>

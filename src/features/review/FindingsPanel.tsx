@@ -5,6 +5,7 @@
 import { useId, useMemo, useState } from 'react';
 import { getObservation, saveObservation } from '../../db';
 import type { Cruise, Observation, Severity } from '../../domain/model';
+import { DISAGREEMENT_CODES, type DisagreementCode } from '../../domain/collocation/disagreement';
 import { FINDING_CODES, type FindingCode } from '../../domain/rules';
 import { withFindingReview, withoutFindingReview, type ReviewFinding } from '../../domain/stats';
 import { fmtUtc, observerInitials, observerLabel } from './format';
@@ -30,7 +31,9 @@ export function filterFindings(findings: readonly ReviewFinding[], f: FindingFil
   );
 }
 
-const ruleSummary = (code: string): string => (Object.prototype.hasOwnProperty.call(FINDING_CODES, code) ? FINDING_CODES[code as FindingCode].summary : code);
+const has = (o: object, k: string) => Object.prototype.hasOwnProperty.call(o, k);
+const ruleSummary = (code: string): string =>
+  has(FINDING_CODES, code) ? FINDING_CODES[code as FindingCode].summary : has(DISAGREEMENT_CODES, code) ? DISAGREEMENT_CODES[code as DisagreementCode].summary : code;
 
 async function saveReview(f: ReviewFinding, comment: string | null, by: string): Promise<void> {
   const current = await getObservation(f.observationId);

@@ -1,11 +1,11 @@
 // Time-series charts of the cruise (uPlot): total concentration, thickness, RIO and temperatures
 // against UTC time. The series carry a null row at every gap (src/domain/stats/series.ts), and
 // uPlot breaks the line at nulls, so gaps show as breaks.
-import { useEffect, useMemo, useRef } from 'react';
+import { useMemo, useRef } from 'react';
 import type uPlot from 'uplot';
-import 'uplot/dist/uPlot.min.css';
 import type { ReviewSeries } from '../../domain/stats';
 import { useThemeStore, effectiveTheme } from '../../state/theme';
+import { plotAxis, useUPlot, utcTickLabels } from './uplotPlot';
 
 interface LineSpec {
   label: string;
@@ -20,23 +20,6 @@ interface ChartSpec {
   unit: string;
   lines: LineSpec[];
   range?: [number, number];
-}
-
-/** Canvas drawing needs a real browser; the component tests run in jsdom, which has none. */
-function canDraw(): boolean {
-  return typeof window !== 'undefined' && typeof window.matchMedia === 'function' && !/jsdom/i.test(navigator.userAgent);
-}
-
-/** Chart width in CSS pixels on an A4 or Letter page with the usual margins. */
-const PRINT_WIDTH = 680;
-
-/** Tick labels in UTC, 24-hour: "03-10 06:00" (the day only at midnight ticks). */
-function utcTickLabels(_u: uPlot, splits: number[]): string[] {
-  return splits.map((ts) => {
-    const iso = new Date(ts * 1000).toISOString();
-    const hm = iso.slice(11, 16);
-    return hm === '00:00' ? iso.slice(5, 10) : hm;
-  });
 }
 
 function summaryText(lines: LineSpec[], unit: string): string {
@@ -57,55 +40,30 @@ function summaryText(lines: LineSpec[], unit: string): string {
 
 function Chart({ spec, time, theme }: { spec: ChartSpec; time: number[]; theme: string }) {
   const box = useRef<HTMLDivElement>(null);
-  useEffect(() => {
-    const el = box.current;
-    if (!el || !canDraw()) return;
-    const width = Math.max(320, Math.min(1100, el.clientWidth || 800));
-    // A printed page is narrower than the screen: redraw at the page's width while printing.
-    const print = window.matchMedia('print');
-    let plot: uPlot | null = null;
-    let cancelled = false;
-    const fitTo = (printing: boolean): void => {
-      plot?.setSize({ width: printing ? PRINT_WIDTH : width, height: 200 });
-    };
-    const onPrint = (e: MediaQueryListEvent): void => fitTo(e.matches);
-    print.addEventListener('change', onPrint);
-    // uPlot reads matchMedia when it loads, so it is loaded only where it can draw (and it stays
-    // out of the first bundle).
-    void import('uplot').then(({ default: UPlot }) => {
-      if (cancelled) return;
-      const css = getComputedStyle(document.documentElement);
-      const text = css.getPropertyValue('--text').trim() || '#000';
-      const grid = css.getPropertyValue('--border').trim() || '#ccc';
-      const axis = { stroke: text, grid: { stroke: grid, width: 1 }, ticks: { stroke: grid } };
-      const opts: uPlot.Options = {
-        width,
-        height: 200,
+  useUPlot(
+    box,
+    (UPlot, c) => ({
+      opts: {
         // Times are UTC, as stored; uPlot would otherwise label in the browser's zone.
         tzDate: (ts) => UPlot.tzDate(new Date(ts * 1000), 'Etc/UTC'),
         scales: { x: { time: true }, y: spec.range ? { range: spec.range } : {} },
-        axes: [{ ...axis, values: utcTickLabels, size: 50 }, { ...axis, label: spec.unit, size: 60 }],
+        axes: [{ ...plotAxis(c), values: utcTickLabels, size: 50 }, { ...plotAxis(c), label: spec.unit, size: 60 }],
         series: [
           { label: 'Time (UTC)' },
           ...spec.lines.map((l) => ({
             label: l.label,
-            stroke: theme === 'red' ? text : l.colour,
+            stroke: theme === 'red' ? c.text : l.colour,
             width: 1.5,
             spanGaps: false,
             points: { show: false },
             ...(l.dash ? { dash: l.dash } : {}),
           })),
         ],
-      };
-      plot = new UPlot(opts, [time, ...spec.lines.map((l) => l.values)] as uPlot.AlignedData, el);
-      fitTo(print.matches);
-    });
-    return () => {
-      print.removeEventListener('change', onPrint);
-      cancelled = true;
-      plot?.destroy();
-    };
-  }, [spec, time, theme]);
+      },
+      data: [time, ...spec.lines.map((l) => l.values)] as uPlot.AlignedData,
+    }),
+    [spec, time, theme],
+  );
   return (
     <figure className="review-chart" data-testid={`chart-${spec.id}`}>
       <figcaption>{spec.title}</figcaption>

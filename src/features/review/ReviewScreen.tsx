@@ -5,8 +5,9 @@ import { useId, useMemo, useState } from 'react';
 import type { Cruise, Observation, TrackPoint } from '../../domain/model';
 import { VESSEL_ICE_CLASS_LABELS } from '../../domain/polaris';
 import { REVIEW_CAUTIONS } from '../../domain/stats';
+import { withDisagreements } from '../../domain/collocation/disagreement';
 import { effectiveTheme, useThemeStore } from '../../state/theme';
-import { AgreementPanel } from './AgreementPanel';
+import { AgreementPanel, useAgreement } from './AgreementPanel';
 import { BandTable } from './BandTable';
 import { FindingsPanel } from './FindingsPanel';
 import { HandoverTable } from './HandoverTable';
@@ -45,6 +46,9 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
   const byId = useMemo(() => new Map(observations.map((o) => [o.id, o])), [observations]);
   const observerName = cruise.observers.find((o) => o.id === observerId)?.name;
   const theme = effectiveTheme(useThemeStore());
+  // Charts and grids are compared on this thread (the store's products are not in the worker).
+  const agreement = useAgreement(observations);
+  const findings = useMemo(() => (figures ? withDisagreements(figures.findings, agreement?.findings ?? []) : []), [figures, agreement]);
   return (
     <div className="review-body">
       <div className="review-heading">
@@ -82,8 +86,8 @@ export function CruiseReview({ cruise, observations, track }: { cruise: Cruise; 
           <ReviewCharts series={figures.review.series} />
           <BandTable table={figures.review.bands} />
           <HandoverTable table={figures.review.handover} observers={cruise.observers} highlight={observerId || null} />
-          <FindingsPanel findings={figures.findings} cruise={cruise} observations={byId} />
-          <AgreementPanel cruise={cruise} observations={observations} />
+          <FindingsPanel findings={findings} cruise={cruise} observations={byId} />
+          {agreement && <AgreementPanel cruise={cruise} data={agreement} theme={theme} />}
         </>
       )}
       <section aria-labelledby="review-cautions-title" className="review-section review-cautions">

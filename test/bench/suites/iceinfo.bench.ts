@@ -1,7 +1,8 @@
 // Ice information (issue 14): a 25 km grid of the whole Arctic (NSIDC north, 304 x 448 cells on
 // EPSG:3413) written with geotiff and imported, against geotiff's bare decode of the same file;
 // and 50,000 observations collocated with it and a chart, against bare proj4 projection of the
-// same positions (the least any collocation must do).
+// same positions (the least any collocation must do); and the same with a chart of 1,600 polygons
+// against the chart of 3, which the polygon index keeps near flat (a scan grew with the count).
 import { fromArrayBuffer, writeArrayBuffer } from 'geotiff';
 import { collocate, type ChartLocator, type GridLocator } from '../../../src/domain/collocation/index.ts';
 import { readChartFile } from '../../../src/iceinfo/chartRead.ts';
@@ -45,9 +46,25 @@ export const suite: BenchSuite = {
       },
       5,
     );
+    // 40 x 40 boxes of 1 degree longitude by 0.5 degree latitude, 20 W to 20 E, 60 N to 80 N.
+    const many = {
+      ...chart,
+      polygons: Array.from({ length: 1600 }, (_, k) => {
+        const lon = -20 + (k % 40);
+        const lat = 60 + Math.floor(k / 40) * 0.5;
+        return { rings: [[lon, lat, lon + 1, lat, lon + 1, lat + 0.5, lon, lat + 0.5, lon, lat]], bbox: [lon, lat, lon + 1, lat + 0.5] as [number, number, number, number], attributes: chart.polygons[0]!.attributes };
+      }),
+    };
+    const manyCharts: ChartLocator[] = [{ chart: many, toPlane: planeOf(chart.crs).toPlane }];
+    const big = await compare(
+      () => collocate(obs, manyCharts, grids),
+      () => collocate(obs, charts, grids),
+      5,
+    );
     return [
       ratioRow(`import a ${W} x ${H} GeoTIFF grid vs bare geotiff decode`, imp.subject, imp.baseline, 'ms', 2),
       ratioRow(`collocate ${N.toLocaleString('en')} observations (chart + grid) vs bare proj4 projection`, col.subject, col.baseline, 'ms', 8),
+      ratioRow(`collocate ${N.toLocaleString('en')} observations with a 1,600-polygon chart vs a 3-polygon chart`, big.subject, big.baseline, 'ms', 2),
     ];
   },
 };
