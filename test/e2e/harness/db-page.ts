@@ -23,6 +23,9 @@ function bundle(entry: string, fileName: string, emptyOutDir: boolean) {
     root: ROOT,
     logLevel: 'warn',
     cacheDir: join(ROOT, '.vite-cache'),
+    // Library mode leaves process.env.NODE_ENV in place, and a dependency that reads it (React,
+    // reached through the import session's modules) would stop the page with "process is not defined".
+    define: { 'process.env.NODE_ENV': JSON.stringify('production') },
     build: { outDir: DB_PAGE_DIR, emptyOutDir, target: 'es2022', minify: false, lib: { entry: join(ROOT, entry), formats: ['es'], fileName: () => fileName } },
   });
 }
