@@ -5,7 +5,8 @@
 //   thousand observations, then a restart on the same port and folder: both laptops resume from
 //   their checkpoints (no changes feed read from the start again) and end with exactly the
 //   cruise: every observation, earlier revision and track point once, no conflict.
-// - The server answering 401, 500, garbage, then nothing (hanging): the observer keeps logging,
+// - The server answering 401, 403, 409, a truncated body, 500, 50 MB, garbage, then nothing
+//   (hanging): the observer keeps logging,
 //   the header shows the state and why, and once the fault clears everything arrives.
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -82,7 +83,7 @@ describe('the ship server failing', { timeout: 300_000 }, () => {
     for (const l of laptops) expect(policyErrors(l.errors)).toEqual([]);
   });
 
-  it('the server answering 401, 500, garbage or nothing: logging goes on, the header says why, and after the fault everything arrives', async () => {
+  it('the server answering 401, 403, 409, a truncated body, 500, 50 MB, garbage or nothing: logging goes on, the header says why, and after the fault everything arrives', async () => {
     const proxy = rig.proxy!;
     const log = cruise('fault-trial', 3, 0, 0);
     await seedCruise(rig, log);
@@ -92,20 +93,30 @@ describe('the ship server failing', { timeout: 300_000 }, () => {
     await showScreen(a.page, 'Watch log');
     await expect.poll(() => a.page.getByTestId('observation-row').count(), { timeout: 30_000 }).toBe(3);
 
+    // Each state differs from the one before it, so the header is seen to change with the fault.
     const faults = [
       { fault: '401', shows: /Ship server refused, \d+ waiting to send.*sign in again/ },
+      { fault: '403', shows: /Ship server refused, \d+ waiting to send.*_security/ },
+      { fault: '409', shows: /Ship server offline since \d\d:\d\d UTC, \d+ waiting to send.*HTTP 409/ },
+      { fault: 'truncated', shows: /Ship server offline since.*unreadable.*cut off/ },
       { fault: '500', shows: /Ship server offline since \d\d:\d\d UTC, \d+ waiting to send.*HTTP 500/ },
-      { fault: 'garbage', shows: /Ship server offline since.*unreadable/ },
+      // 50 MB streamed without a length: under the browser client's limit of 64 MB an answer, so
+      // it is read whole and found not to be the answer asked for (the Node test sets a lower
+      // limit to see "too large").
+      { fault: 'huge', shows: /Ship server offline since.*unreadable \(POST _all_docs: the answer has no rows\)/ },
+      { fault: 'garbage', shows: /Ship server offline since.*unreadable.*not JSON/ },
       // The app gives an answer 30 s before it calls the server silent.
       { fault: 'hang', shows: /Ship server offline since.*does not answer in time/ },
     ] as const;
     let hour = 10;
+    const shown: string[] = [];
     for (const f of faults) {
       proxy.fault = f.fault;
       // Logging goes on: the save is stored whatever the server does.
       const saved = await logObservation(a.page, { time: `2026-03-11 ${hour++}:00`, position: '79 10.0 N 012 00.0 E', total: '4', notes: `saved while the server answers ${f.fault}` });
       expect(saved).toMatch(/^Saved: /);
       await expect.poll(() => badge(a.page).innerText(), { timeout: 60_000, interval: 100 }).toMatch(f.shows);
+      shown.push(`${f.fault}: ${await badge(a.page).innerText()}`);
     }
     expect(proxy.faulted).toBeGreaterThan(0);
 
@@ -118,6 +129,7 @@ describe('the ship server failing', { timeout: 300_000 }, () => {
     const notes = server.observations.map((o) => o.notes).filter((n) => n.startsWith('saved'));
     expect(notes.sort()).toEqual([...faults.map((f) => `saved while the server answers ${f.fault}`), 'saved after the fault cleared'].sort());
     expect((await storeCounts(a.page)).observations).toBe(3 + faults.length + 1);
+    console.log(`sync-server-faults: the header during the faults:\n${shown.join('\n')}`);
     expect(policyErrors(a.errors)).toEqual([]);
   });
 });

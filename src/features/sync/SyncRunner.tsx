@@ -1,5 +1,5 @@
 // Starts the sync when a ship server is set and switched on and a cruise is active; stops it
-// otherwise; wakes it when the log changes. Renders nothing.
+// otherwise; wakes it when the log changes or the network comes back. Renders nothing.
 import { useLiveQuery } from 'dexie-react-hooks';
 import { useEffect, useState } from 'react';
 import { cruiseChangeStamp, deviceId, getCruise, getSetting, setActiveCruise } from '../../db';
@@ -30,5 +30,11 @@ export function SyncRunner() {
   useEffect(() => {
     if (stamp) nudgeSync();
   }, [stamp]);
+  // The link is back: send what waited now rather than at the end of a backoff of up to a minute.
+  useEffect(() => {
+    const online = () => nudgeSync();
+    window.addEventListener('online', online);
+    return () => window.removeEventListener('online', online);
+  }, []);
   return null;
 }

@@ -48,11 +48,18 @@ export function storeCounts(page: Page): Promise<StoreCounts> {
   );
 }
 
-/** Notes of every stored observation (to find what a test saved). */
-export function storedNotes(page: Page): Promise<string[]> {
+/** Id, UTC time, revision and notes of every stored observation. */
+export interface StoredObservation {
+  id: string;
+  time: string;
+  revision: number;
+  notes: string;
+}
+
+export function storedObservations(page: Page): Promise<StoredObservation[]> {
   return page.evaluate(
     (name) =>
-      new Promise<string[]>((ok, fail) => {
+      new Promise<StoredObservation[]>((ok, fail) => {
         const req = indexedDB.open(name);
         req.onerror = () => fail(req.error);
         req.onsuccess = () => {
@@ -60,13 +67,18 @@ export function storedNotes(page: Page): Promise<string[]> {
           const all = db.transaction('observations', 'readonly').objectStore('observations').getAll();
           all.onsuccess = () => {
             db.close();
-            ok((all.result as Array<{ notes?: string }>).map((o) => o.notes ?? ''));
+            ok((all.result as Array<Omit<StoredObservation, 'notes'> & { notes?: string }>).map((o) => ({ id: o.id, time: o.time, revision: o.revision, notes: o.notes ?? '' })));
           };
           all.onerror = () => fail(all.error);
         };
       }),
     DEFAULT_DB_NAME,
   );
+}
+
+/** Notes of every stored observation (to find what a test saved). */
+export async function storedNotes(page: Page): Promise<string[]> {
+  return (await storedObservations(page)).map((o) => o.notes);
 }
 
 /**
