@@ -5,6 +5,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import h5wasm from 'h5wasm/node';
 import type { Hdf5FileLike, Hdf5Opener } from '../iceinfo/gridRead.ts';
+import { openHdf5View } from '../iceinfo/hdf5File.ts';
 
 export const nodeHdf5: Hdf5Opener = {
   async open(bytes: Uint8Array): Promise<Hdf5FileLike> {
@@ -12,20 +13,9 @@ export const nodeHdf5: Hdf5Opener = {
     const dir = mkdtempSync(join(tmpdir(), 'floe-ledger-h5-'));
     const path = join(dir, 'grid.h5');
     writeFileSync(path, bytes);
-    let file: InstanceType<typeof h5wasm.File>;
-    try {
-      file = new h5wasm.File(path, 'r');
-    } catch (e) {
-      rmSync(dir, { recursive: true, force: true });
-      throw e;
-    }
-    return {
-      keys: () => file.keys(),
-      get: (name) => file.get(name) as ReturnType<Hdf5FileLike['get']>,
-      close: () => {
-        file.close();
-        rmSync(dir, { recursive: true, force: true });
-      },
-    };
+    return openHdf5View(
+      () => new h5wasm.File(path, 'r'),
+      () => rmSync(dir, { recursive: true, force: true }),
+    );
   },
 };

@@ -57,8 +57,8 @@ export function IceInfoPanel() {
     <section className="exchange-panel iceinfo-panel" aria-labelledby="iceinfo-title">
       <h3 id="iceinfo-title">Ice charts and satellite grids</h3>
       <p className="small">
-        SIGRID-3 ice charts (zipped shapefile or GeoJSON) and sea-ice concentration grids (GeoTIFF or classic NetCDF on the NSIDC polar stereographic or EASE-Grid 2.0
-        planes). NetCDF-4 / HDF5 grids are read by the command line. Neither is a navigation product.
+        SIGRID-3 ice charts (zipped shapefile or GeoJSON) and sea-ice concentration grids (GeoTIFF, classic NetCDF or NetCDF-4 / HDF5 on the NSIDC polar
+        stereographic or EASE-Grid 2.0 planes). Neither is a navigation product.
       </p>
       <label className="field-line">
         Source{' '}

@@ -4,6 +4,7 @@ import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chart
 import { readChartFile } from '../../iceinfo/chartRead';
 import type { GeoTiffPreset } from '../../iceinfo/gridCells';
 import { readGridFile, sniffGrid } from '../../iceinfo/gridRead';
+import { browserHdf5 } from '../../iceinfo/hdf5Browser';
 import { IceInfoError } from '../../iceinfo/problems';
 
 export interface IceInfoRequest {
@@ -23,10 +24,6 @@ export type IceInfoRead =
 
 export type IceInfoStage = 'read' | 'decode' | 'done';
 
-// NetCDF-4 / HDF5 needs h5wasm's WebAssembly (about 4 MB), more than the whole app; the command
-// line reads it (docs/dev/iceinfo.md).
-const HDF5_IN_APP = 'is NetCDF-4 / HDF5: the app does not read it (its reader is larger than the whole app). Read it with the command line (floe-ledger summary or convert with --grid), or bring the grid as GeoTIFF or classic NetCDF';
-
 export async function readIceInfoFile(req: IceInfoRequest, progress: (stage: IceInfoStage) => void): Promise<IceInfoRead> {
   try {
     progress('read');
@@ -34,9 +31,8 @@ export async function readIceInfoFile(req: IceInfoRequest, progress: (stage: Ice
     progress('decode');
     const time = req.time.trim();
     const kind = sniffGrid(bytes);
-    if (kind === 'hdf5') return { ok: false, message: `${req.fileName} ${HDF5_IN_APP}.` };
     if (kind !== null) {
-      const { grid, warnings } = await readGridFile(bytes, { id: req.id, sourceName: req.sourceName, fileName: req.fileName, importedAt: req.importedAt, preset: req.preset, ...(time ? { gridTime: time } : {}) });
+      const { grid, warnings } = await readGridFile(bytes, { id: req.id, sourceName: req.sourceName, fileName: req.fileName, importedAt: req.importedAt, preset: req.preset, ...(time ? { gridTime: time } : {}) }, browserHdf5);
       progress('done');
       return { ok: true, kind: 'grid', grid, warnings };
     }

@@ -2,6 +2,7 @@
 // adapt them. Chart polygons keep the WMO/TD-No. 1215 total-concentration colours in every display
 // (as the observation symbols do), dimmed at night; the grid has a colour scale of its own so it
 // is never mistaken for a chart.
+import { GRID_FLAG } from '../../domain/collocation/chartModel';
 import type { MapTheme } from './style';
 
 export interface IceInfoPalette {
@@ -27,4 +28,15 @@ export function gridColour(percent: number, p: IceInfoPalette): readonly [number
   if (percent < GRID_EDGE_PERCENT) return [0, 0, 0, 0];
   const t = (percent - GRID_EDGE_PERCENT) / (100 - GRID_EDGE_PERCENT);
   return [0, 1, 2].map((i) => Math.round(p.gridLow[i]! + t * (p.gridHigh[i]! - p.gridLow[i]!))).concat(p.gridAlpha) as unknown as readonly [number, number, number, number];
+}
+
+/**
+ * RGBA for every cell byte (256 x 4): percent by `gridColour`, the pole hole in its grey, other
+ * flags clear. Built once per image, so drawing a pixel is a lookup, not a new array.
+ */
+export function gridColourTable(p: IceInfoPalette): Uint8ClampedArray {
+  const table = new Uint8ClampedArray(256 * 4);
+  for (let v = 0; v <= 100; v++) table.set(gridColour(v, p), v * 4);
+  table.set([...p.poleHole, p.gridAlpha], GRID_FLAG.poleHole * 4);
+  return table;
 }

@@ -2,11 +2,11 @@
 // latitude (edges of projected charts densified so they bend as in the chart's plane), and a grid
 // as an RGBA image on a longitude/latitude box, resampled in Web Mercator rows. Pure.
 import type { Feature, FeatureCollection, Polygon } from 'geojson';
-import { GRID_FLAG, type ConcentrationGrid, type IceChart } from '../../domain/collocation/chartModel';
+import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chartModel';
 import { readConcentrationCode, readPolyType } from '../../domain/collocation/sigrid3';
 import { planeOf } from '../../iceinfo/projections';
 import { bandOfTenths, band, hexColour } from './concentrationBands';
-import { gridColour, type IceInfoPalette } from './iceInfoColours';
+import { gridColourTable, type IceInfoPalette } from './iceInfoColours';
 
 /** Longest edge drawn straight, in the chart plane (metres). */
 const DENSIFY_M = 20_000;
@@ -138,6 +138,7 @@ export function gridImage(grid: ConcentrationGrid, palette: IceInfoPalette, widt
   const height = Math.max(16, Math.min(2048, Math.round((width * (yTop - yBottom)) / (((box.east - box.west) * Math.PI) / 180))));
   const rgba = new Uint8ClampedArray(width * height * 4);
   const to = planeOf(grid.crs).toPlane;
+  const table = gridColourTable(palette);
   for (let j = 0; j < height; j++) {
     const lat = latOfMercY(yTop + ((j + 0.5) / height) * (yBottom - yTop));
     for (let i = 0; i < width; i++) {
@@ -147,20 +148,12 @@ export function gridImage(grid: ConcentrationGrid, palette: IceInfoPalette, widt
       const c = Math.round((p[0] - grid.x0) / grid.dx);
       const r = Math.round((p[1] - grid.y0) / grid.dy);
       if (c < 0 || r < 0 || c >= grid.width || r >= grid.height) continue;
-      const v = grid.cells[r * grid.width + c] as number;
+      const t = (grid.cells[r * grid.width + c] as number) * 4;
       const o = (j * width + i) * 4;
-      if (v <= 100) {
-        const col = gridColour(v, palette);
-        rgba[o] = col[0];
-        rgba[o + 1] = col[1];
-        rgba[o + 2] = col[2];
-        rgba[o + 3] = col[3];
-      } else if (v === GRID_FLAG.poleHole) {
-        rgba[o] = palette.poleHole[0];
-        rgba[o + 1] = palette.poleHole[1];
-        rgba[o + 2] = palette.poleHole[2];
-        rgba[o + 3] = palette.gridAlpha;
-      }
+      rgba[o] = table[t]!;
+      rgba[o + 1] = table[t + 1]!;
+      rgba[o + 2] = table[t + 2]!;
+      rgba[o + 3] = table[t + 3]!;
     }
   }
   return { width, height, rgba, coordinates: [[box.west, box.north], [box.east, box.north], [box.east, box.south], [box.west, box.south]] };

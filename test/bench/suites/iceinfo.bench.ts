@@ -2,12 +2,16 @@
 // EPSG:3413) written with geotiff and imported, against geotiff's bare decode of the same file;
 // and 50,000 observations collocated with it and a chart, against bare proj4 projection of the
 // same positions (the least any collocation must do); and the same with a chart of 1,600 polygons
-// against the chart of 3, which the polygon index keeps near flat (a scan grew with the count).
+// against the chart of 3, which the polygon index keeps near flat (a scan grew with the count);
+// and the map's image of that grid (gridImage: every pixel of a 1024-wide Web Mercator image
+// projected into the grid's plane) against a bare loop giving each cell its colour once.
 import { fromArrayBuffer, writeArrayBuffer } from 'geotiff';
 import { collocate, type ChartLocator, type GridLocator } from '../../../src/domain/collocation/index.ts';
 import { readChartFile } from '../../../src/iceinfo/chartRead.ts';
 import { readGridFile } from '../../../src/iceinfo/gridRead.ts';
 import { KNOWN_GRID_CRS, planeOf } from '../../../src/iceinfo/projections.ts';
+import { gridImage } from '../../../src/features/map/iceInfoLayers.ts';
+import { gridColourTable, ICEINFO_PALETTES } from '../../../src/features/map/iceInfoColours.ts';
 import { chartGeoJson } from '../../iceinfo/chartFiles.ts';
 import { compare, ratioRow, type BenchSuite } from '../bench-kit';
 
@@ -61,10 +65,32 @@ export const suite: BenchSuite = {
       () => collocate(obs, charts, grids),
       5,
     );
+    const palette = ICEINFO_PALETTES.day;
+    let drawnHeight = 0;
+    const draw = await compare(
+      () => {
+        drawnHeight = gridImage(grid, palette)?.height ?? 0;
+      },
+      () => {
+        // The least any drawing does: one RGBA pixel per cell, coloured as the map colours it.
+        const table = gridColourTable(palette);
+        const rgba = new Uint8ClampedArray(grid.width * grid.height * 4);
+        for (let k = 0; k < grid.cells.length; k++) {
+          const t = (grid.cells[k] as number) * 4;
+          rgba[k * 4] = table[t]!;
+          rgba[k * 4 + 1] = table[t + 1]!;
+          rgba[k * 4 + 2] = table[t + 2]!;
+          rgba[k * 4 + 3] = table[t + 3]!;
+        }
+        return rgba;
+      },
+      7,
+    );
     return [
       ratioRow(`import a ${W} x ${H} GeoTIFF grid vs bare geotiff decode`, imp.subject, imp.baseline, 'ms', 2),
       ratioRow(`collocate ${N.toLocaleString('en')} observations (chart + grid) vs bare proj4 projection`, col.subject, col.baseline, 'ms', 8),
       ratioRow(`collocate ${N.toLocaleString('en')} observations with a 1,600-polygon chart vs a 3-polygon chart`, big.subject, big.baseline, 'ms', 2),
+      ratioRow(`draw the ${W} x ${H} grid as a 1024 x ${drawnHeight} map image vs one colour per cell`, draw.subject, draw.baseline, 'ms', 100),
     ];
   },
 };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { GRID_FLAG, type ConcentrationGrid, type IceChart } from '../../../src/domain/collocation';
-import { ICEINFO_PALETTES, gridColour } from '../../../src/features/map/iceInfoColours';
+import { ICEINFO_PALETTES, gridColour, gridColourTable } from '../../../src/features/map/iceInfoColours';
 import { chartFeatures, gridBox, gridImage } from '../../../src/features/map/iceInfoLayers';
 import { KNOWN_GRID_CRS } from '../../../src/iceinfo/projections';
 
@@ -52,5 +52,14 @@ describe('grid image for the map', () => {
     expect(seen.has(gridColour(100, ICEINFO_PALETTES.day).join(','))).toBe(true);
     expect(seen.has('0,0,0,0')).toBe(true);
     expect(gridColour(10, ICEINFO_PALETTES.day)[3]).toBe(0); // below the 15 % edge: clear (common practice)
+  });
+  it('looks every cell byte up in one table: the scale for percent, grey for the pole hole, other flags clear', () => {
+    for (const theme of ['day', 'night', 'red'] as const) {
+      const p = ICEINFO_PALETTES[theme];
+      const table = gridColourTable(p);
+      for (let v = 0; v <= 100; v++) expect(Array.from(table.slice(v * 4, v * 4 + 4))).toEqual([...gridColour(v, p)]);
+      expect(Array.from(table.slice(GRID_FLAG.poleHole * 4, GRID_FLAG.poleHole * 4 + 4))).toEqual([...p.poleHole, p.gridAlpha]);
+      for (const flag of [GRID_FLAG.land, GRID_FLAG.coast, GRID_FLAG.missing, GRID_FLAG.unknownFlag]) expect(table[flag * 4 + 3]).toBe(0);
+    }
   });
 });
