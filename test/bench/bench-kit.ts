@@ -29,6 +29,11 @@ export function absoluteRow(figure: string, value: number, unit: string, max: nu
   return { figure, value, baseline: null, unit, ratio: null, target: `<= ${max} ${unit}`, met: value <= max };
 }
 
+/** A figure beside a floor or a reference, shown for reading the others: it has no target. */
+export function contextRow(figure: string, value: number, baseline: number, unit: string): BenchRow {
+  return { figure, value, baseline, unit, ratio: baseline > 0 ? value / baseline : null, target: 'context', met: true };
+}
+
 export function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
   const m = Math.floor(s.length / 2);
@@ -73,7 +78,7 @@ function fmt(x: number | null): string {
 
 export function formatTable(rows: BenchRow[]): string {
   const head = ['figure', 'value', 'baseline', 'unit', 'ratio', 'target', 'met'];
-  const body = rows.map((r) => [r.figure, fmt(r.value), fmt(r.baseline), r.unit, r.ratio === null ? '-' : `${fmt(r.ratio)}x`, r.target, r.met ? 'yes' : 'NO']);
+  const body = rows.map((r) => [r.figure, fmt(r.value), fmt(r.baseline), r.unit, r.ratio === null ? '-' : `${fmt(r.ratio)}x`, r.target, r.target === 'context' ? '-' : r.met ? 'yes' : 'NO']);
   const widths = head.map((h, i) => Math.max(h.length, ...body.map((row) => (row[i] ?? '').length)));
   const line = (cells: string[]) => cells.map((c, i) => c.padEnd(widths[i] ?? 0)).join('  ');
   return [line(head), line(widths.map((w) => '-'.repeat(w))), ...body.map(line)].join('\n');

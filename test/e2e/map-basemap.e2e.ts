@@ -70,6 +70,8 @@ describe('basemap offline', () => {
     expect(requests.filter((u) => !/land-50m/.test(u))).toEqual([]);
     expect(fromPrecache.some((u) => /\/assets\/MapScreen-[^/]+\.js$/.test(u)), 'the map screen came from the precache').toBe(true);
     expect(['loaded', 'failed']).toContain(await page.evaluate(() => window.__floeMapDebug?.fineLand()));
+    // MapLibre's workers took the helper script from the precache too (maplibreWorkerPatch.ts).
+    expect(await page.evaluate(() => window.__floeMapDebug?.workerPatch())).toBe('ready');
   }, 240_000);
 
   it('draws no stripes across Mercator at the antimeridian', async () => {

@@ -84,6 +84,33 @@ describe('ice map in Chromium', () => {
     expect(await page.evaluate(() => window.__floeMapDebug?.fineLand())).toBe('loaded');
   }, 240_000);
 
+  it('has MapLibre\'s own worker read the map\'s GeoJSON, with no copy sent back to the page', async () => {
+    const { page } = app;
+    expect(await page.evaluate(() => window.__floeMapDebug?.workerPatch())).toBe('ready');
+    interface Probe {
+      reads: number;
+      wrapped: boolean;
+    }
+    const probes = await Promise.all(
+      page.workers().map((w) =>
+        w
+          .evaluate((): Probe | null => {
+            const s = self as unknown as { floeBlobReads?: number; worker?: { actor?: { messageHandlers?: Record<string, { floeWrapped?: boolean } | undefined> } } };
+            const handlers = s.worker?.actor?.messageHandlers;
+            return handlers ? { reads: s.floeBlobReads ?? 0, wrapped: handlers.LD?.floeWrapped === true } : null;
+          })
+          .catch(() => null),
+      ),
+    );
+    const maplibreWorkers = probes.filter((p): p is Probe => p !== null);
+    expect(maplibreWorkers.length).toBeGreaterThan(0);
+    // Without the helper MapLibre would send each blob URL to the page to be fetched and parsed
+    // there, and post every document back to the page after indexing it.
+    for (const w of maplibreWorkers) expect(w.wrapped).toBe(true);
+    // Observations, track levels, zone stretches, fine land and its coastlines.
+    expect(maplibreWorkers.reduce((n, w) => n + w.reads, 0)).toBeGreaterThanOrEqual(5);
+  }, 240_000);
+
   it('draws the same colours in Mercator (where Mercator reaches: up to 85.05 N)', async () => {
     const { page } = app;
     await setProjection(page, 'mercator');

@@ -2,7 +2,7 @@
 // changes, selection through feature state, filters as layer filters, images drawn on demand.
 // React components (MapView.tsx) create one controller and call it; nothing else touches
 // MapLibre.
-import { Map as MapLibreMap, NavigationControl, ScaleControl, type GeoJSONSource, type MapGeoJSONFeature, type StyleImageMetadata } from 'maplibre-gl';
+import { importScriptInWorkers, Map as MapLibreMap, NavigationControl, ScaleControl, type GeoJSONSource, type MapGeoJSONFeature, type StyleImageMetadata } from 'maplibre-gl';
 import 'maplibre-gl/dist/maplibre-gl.css';
 import type { FeatureCollection } from 'geojson';
 import type { Observation, Observer, TrackPoint } from '../../domain/model';
@@ -21,6 +21,7 @@ import { IceInfoLayers } from './iceInfoMap';
 import type { ConcentrationGrid, IceChart } from '../../domain/collocation/chartModel';
 import { buildStyle, EGG_MIN_ZOOM, eggFilter, LAYER, MARK_PREFIX, markImageRadius, observationLayerFilter, PALETTES, projectionSpec, SHIP_IMAGE, SRC, type MapTheme, type ObservationFilter, type ProjectionKind } from './style';
 import { globeCamera, lonLatBounds, sample, type LonLat } from './view';
+import workerPatchUrl from './maplibreWorkerPatch.ts?worker&url';
 
 export interface MapControllerOptions {
   theme: MapTheme;
@@ -47,12 +48,30 @@ const LABEL_PREFIX = 'lbl:';
 /** How long blob: URLs of a removed map are kept, for a read MapLibre's worker had already begun. */
 const RELEASE_GRACE_MS = 10_000;
 
+/**
+ * Loads maplibreWorkerPatch.ts into MapLibre's workers once per worker set (MapLibre keeps one
+ * pool for every map of the page and may start it afresh when the last map goes).
+ * Without it the map still works, only with the big GeoJSON documents parsed on the page.
+ */
+function patchMapLibreWorkers(): Promise<'ready' | 'failed'> {
+  return importScriptInWorkers(new URL(workerPatchUrl, location.href).href).then(
+    () => 'ready' as const,
+    (e: unknown) => {
+      console.warn('Floe Ledger: the map reads its data on the page (the worker helper did not load):', e);
+      return 'failed' as const;
+    },
+  );
+}
+
 export class MapController {
   readonly map: MapLibreMap;
   private theme: MapTheme;
   private projection: ProjectionKind;
   private worker = new MapWorker();
   private loaded = false;
+  /** Whether MapLibre's workers read blob URLs themselves (maplibreWorkerPatch.ts). */
+  workerPatch: 'pending' | 'ready' | 'failed' = 'pending';
+  private readonly workerPatchDone: Promise<unknown>;
   private pending: (() => void)[] = [];
   private observations = new Map<string, Observation>();
   private selected: string | null = null;
@@ -90,6 +109,9 @@ export class MapController {
       pitchWithRotate: false,
       fadeDuration: 0,
     });
+    // Started at once: it is done long before the style has loaded, and the sources are fed
+    // only after both.
+    this.workerPatchDone = patchMapLibreWorkers().then((state) => (this.workerPatch = state));
     this.map.touchZoomRotate.disableRotation();
     this.overlay = new PolarOverlay(this.map, PALETTES[this.theme], this.theme);
     this.overlay.setEnabled(this.projection === 'globe');
@@ -98,7 +120,10 @@ export class MapController {
     this.map.addControl(new ScaleControl({ unit: 'metric', maxWidth: 140 }), 'bottom-left');
     opts.onState?.('loading');
     this.map.on('styleimagemissing', (e: { id: string }) => this.drawMissingImage(e.id));
-    this.map.on('load', () => this.onLoad());
+    this.map.on('load', () => {
+      if (this.workerPatch !== 'pending') this.onLoad();
+      else void this.workerPatchDone.then(() => this.onLoad());
+    });
     this.map.on('idle', () => {
       for (const r of this.releaseWhenIdle.splice(0)) r();
       opts.onState?.('idle');
@@ -149,6 +174,7 @@ export class MapController {
   }
 
   private onLoad(): void {
+    if (this.destroyed) return;
     this.loaded = true;
     this.addShipImage();
     this.updateLabels();

@@ -15,6 +15,8 @@ export interface MapDebug {
   jumpTo: (lon: number, lat: number, zoom: number) => void;
   frame: () => void;
   fineLand: () => string;
+  /** Whether MapLibre's workers read the map's blob URLs themselves (maplibreWorkerPatch.ts). */
+  workerPatch: () => string;
   /** The raster of an image the map holds (e.g. `egg:<id>`), or null while it is not drawn. */
   image: (id: string) => { width: number; height: number; data: number[] } | null;
   /** Stores a cruise with its observations and track and makes it the active one. */
@@ -44,6 +46,7 @@ export function installMapDebug(c: MapController): () => void {
     jumpTo: (lon, lat, zoom) => c.map.jumpTo({ center: [lon, lat], zoom }),
     frame: () => c.frame(),
     fineLand: () => c.fineLand,
+    workerPatch: () => c.workerPatch,
     image: (id) => {
       const img = c.map.getImage(id);
       return img ? { width: img.data.width, height: img.data.height, data: Array.from(img.data.data) } : null;

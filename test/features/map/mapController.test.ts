@@ -106,7 +106,7 @@ vi.mock('maplibre-gl', () => {
     remove() {}
   }
   class Control {}
-  return { Map: FakeMap, NavigationControl: Control, ScaleControl: Control };
+  return { Map: FakeMap, NavigationControl: Control, ScaleControl: Control, importScriptInWorkers: () => Promise.resolve([]) };
 });
 
 // Asset and worker imports are the bundler's; under test they only need to resolve.
@@ -161,12 +161,17 @@ interface Fake {
   fire: (type: string, e?: unknown) => void;
 }
 
-function setup() {
+async function setup() {
   calls.log.length = 0;
   drawn.length = 0;
   const select = vi.fn();
   const c = new MapController(document.createElement('div'), { theme: 'day', projection: 'globe', onSelect: select });
   const map = calls.maps[calls.maps.length - 1] as Fake;
+  // The worker helper's import settles first (at once here), as it does long before a real
+  // style has loaded.
+  await Promise.resolve();
+  await Promise.resolve();
+  expect(c.workerPatch).toBe('ready');
   map.fire('load');
   return { c, map, select };
 }
@@ -179,7 +184,7 @@ describe('map controller', () => {
   });
 
   it('gives observations to the map once per change, and draws each egg code from the domain', async () => {
-    const { c, map } = setup();
+    const { c, map } = await setup();
     const list = [obs('a', 8), obs('b', 10)];
     c.setObservations(list, []);
     // Written by the map worker (in place here: jsdom has no Worker), so a moment later.
@@ -205,7 +210,7 @@ describe('map controller', () => {
   });
 
   it('selects by feature state and filters by layer filter, with no data reload', async () => {
-    const { c } = setup();
+    const { c } = await setup();
     c.setObservations([obs('a', 8), obs('b', 10)], []);
     await vi.waitFor(() => expect(setDataFor('observations')).toHaveLength(1));
     const before = calls.log.filter((l) => l.fn === 'setData').length;
@@ -226,16 +231,16 @@ describe('map controller', () => {
     expect(filtered).toContain('egg-codes');
   });
 
-  it('switches projection on request only', () => {
-    const { c } = setup();
+  it('switches projection on request only', async () => {
+    const { c } = await setup();
     c.setProjection('globe');
     expect(calls.log.filter((l) => l.fn === 'setProjection')).toHaveLength(0);
     c.setProjection('mercator');
     expect(calls.log.filter((l) => l.fn === 'setProjection').map((l) => l.args[0])).toEqual([{ type: 'mercator' }]);
   });
 
-  it('draws graticule labels for the view as images, never as text layers', () => {
-    const { map } = setup();
+  it('draws graticule labels for the view as images, never as text layers', async () => {
+    const { map } = await setup();
     const labels = setDataFor('graticule-labels');
     expect(labels.length).toBeGreaterThan(0);
     map.fire('styleimagemissing', { id: 'lbl:75°N' });
