@@ -20,6 +20,7 @@ import type { ProblemReport } from '../format/problems';
 import type { ReadWarning } from '../format/read';
 import type { LogCounts, LogPiece, LogVerdict, OpenPiecesRoute } from '../format/readStream';
 import type { PhotoBytes } from '../format/types';
+import Dexie from 'dexie';
 import { getDb, writableDb } from './connection';
 import type { FloeDatabase } from './database';
 import { FloeDbError, mapWriteError } from './errors';
@@ -59,6 +60,35 @@ export interface ImportSummary {
 }
 
 export type ImportPreview = { ok: true; summary: ImportSummary; expected: Map<string, number | null> } | { ok: false; problems: ProblemReport };
+
+/**
+ * Where a pass spends its time, in milliseconds added up per kind of work: `read` (the file's
+ * pieces read, parsed and checked), `plan` and `planTrack` (observations and track planned
+ * against the store), `write` (the writes).
+ * For benchmarks; left out, nothing is measured.
+ */
+export type ImportTiming = Record<'read' | 'plan' | 'planTrack' | 'write', number>;
+
+/** Times `f` into `timing[key]` when there is a timing. */
+function timed<T>(timing: ImportTiming | undefined, key: keyof ImportTiming, f: () => T): T {
+  if (!timing) return f();
+  const t0 = performance.now();
+  try {
+    return f();
+  } finally {
+    timing[key] += performance.now() - t0;
+  }
+}
+
+async function timedAsync<T>(timing: ImportTiming | undefined, key: keyof ImportTiming, f: () => Promise<T>): Promise<T> {
+  if (!timing) return f();
+  const t0 = performance.now();
+  try {
+    return await f();
+  } finally {
+    timing[key] += performance.now() - t0;
+  }
+}
 
 /** Stored versions of some observations of a cruise, read inside the caller's transaction. */
 async function storedVersions(db: FloeDatabase, cruiseId: string, ids: string[]): Promise<Map<string, StoredVersions>> {
@@ -103,6 +133,11 @@ class PiecePlanner {
   photoIds = new Set<string>();
   cruiseId = '';
   photosWithoutBytes = 0;
+  /**
+   * Whether the store holds nothing of this cruise (a first import, the common case at full
+   * size): then no piece needs to ask the store about its observations or track hours.
+   */
+  private nothingStored = false;
 
   constructor(
     private readonly db: FloeDatabase,
@@ -121,11 +156,15 @@ class PiecePlanner {
     this.cruiseId = p.cruise.id;
     const stored = (await this.db.cruises.get(p.cruise.id)) ?? null;
     this.photoIds = new Set(await this.db.photos.where('cruiseId').equals(p.cruise.id).primaryKeys());
+    this.nothingStored =
+      stored === null &&
+      (await this.db.observations.where('cruiseId').equals(p.cruise.id).limit(1).count()) === 0 &&
+      (await this.db.trackChunks.where('[cruiseId+hour]').between([p.cruise.id, Dexie.minKey], [p.cruise.id, Dexie.maxKey], true, true).limit(1).count()) === 0;
     this.cruise = planCruiseOf({ cruise: stored, versions: () => undefined, hasTrackTime: () => false, hasPhoto: () => false }, p.cruise);
   }
 
   async observations(p: LogPiece & { kind: 'observations' }): Promise<MergePlan> {
-    const stored = await storedVersions(this.db, this.cruiseId, p.observations.map((o) => o.id));
+    const stored = this.nothingStored ? new Map<string, StoredVersions>() : await storedVersions(this.db, this.cruiseId, p.observations.map((o) => o.id));
     const plan = emptyPlan(this.cruise as MergePlan['cruise']);
     planObservations(plan, this.target(stored), p);
     this.add(plan);
@@ -134,7 +173,8 @@ class PiecePlanner {
 
   async track(p: LogPiece & { kind: 'track' }): Promise<MergePlan> {
     const plan = emptyPlan(this.cruise as MergePlan['cruise']);
-    planTrack(plan, this.target(new Map(), await storedTimesOf(this.db, this.cruiseId, p.points)), p.points, this.seen);
+    const hasTime = this.nothingStored ? () => false : await storedTimesOf(this.db, this.cruiseId, p.points);
+    planTrack(plan, this.target(new Map(), hasTime), p.points, this.seen);
     this.add(plan);
     return plan;
   }
@@ -152,13 +192,14 @@ class PiecePlanner {
  * The first pass: reads and plans every piece, writes nothing. On a file the piece reader
  * leaves to the whole-file reader (a `restart` piece), the plan starts over.
  */
-export async function previewImport(open: OpenPieces, opts: { photos?: PhotoBytes; onProgress?: (done: number) => void } = {}): Promise<ImportPreview> {
+export async function previewImport(open: OpenPieces, opts: { photos?: PhotoBytes; onProgress?: (done: number) => void; timing?: ImportTiming } = {}): Promise<ImportPreview> {
   const db = getDb();
+  const timing = opts.timing;
   let planner = new PiecePlanner(db, opts.photos);
   const gen = open();
   let done = 0;
   for (;;) {
-    const n = gen.next();
+    const n = timed(timing, 'read', () => gen.next());
     if (n.done) {
       const v = n.value;
       if (!v.ok) return v;
@@ -179,13 +220,13 @@ export async function previewImport(open: OpenPieces, opts: { photos?: PhotoByte
       planner = new PiecePlanner(db, opts.photos);
       planner.seen = new Set<string>();
       done = 0;
-    } else if (p.kind === 'head') await db.transaction('r', [db.cruises, db.photos], () => planner.head(p));
+    } else if (p.kind === 'head') await db.transaction('r', [db.cruises, db.photos, db.observations, db.trackChunks], () => planner.head(p));
     else if (p.kind === 'observations') {
-      const plan = await db.transaction('r', [db.observations, db.revisions, db.conflicts], () => planner.observations(p));
+      const plan = await timedAsync(timing, 'plan', () => db.transaction('r', [db.observations, db.revisions, db.conflicts], () => planner.observations(p)));
       for (const item of plan.items) planner.expected.set(item.id, item.storedRevision);
       done += p.observations.length;
     } else if (p.kind === 'track') {
-      await db.transaction('r', [db.trackChunks], () => planner.track(p));
+      await timedAsync(timing, 'planTrack', () => db.transaction('r', [db.trackChunks], () => planner.track(p)));
       done += p.points.length;
     } else planner.photosPiece(p);
     opts.onProgress?.(done);
@@ -196,8 +237,9 @@ export async function previewImport(open: OpenPieces, opts: { photos?: PhotoByte
  * The second pass, in one read-write transaction (see the header). `open` must read the same
  * file as the preview did; `onProgress` gets the observations and track points written so far.
  */
-export async function applyImport(open: OpenPieces, preview: ImportPreview & { ok: true }, opts: ApplyOptions & { onProgress?: (done: number) => void }): Promise<ApplyResult> {
+export async function applyImport(open: OpenPieces, preview: ImportPreview & { ok: true }, opts: ApplyOptions & { onProgress?: (done: number) => void; timing?: ImportTiming }): Promise<ApplyResult> {
   const db = await writableDb();
+  const timing = opts.timing;
   const at = nowIso();
   const result: ApplyResult = { observations: 0, history: 0, conflicts: 0, trackPoints: 0, photos: 0, photosWithoutBytes: 0 };
   try {
@@ -207,8 +249,11 @@ export async function applyImport(open: OpenPieces, preview: ImportPreview & { o
       const gen = open(preview.summary.route, preview.summary.textHash);
       let planned = 0;
       let done = 0;
+      // The next piece, read while the writes of the one before were in flight.
+      let prefetched: IteratorResult<LogPiece, LogVerdict> | null = null;
       for (;;) {
-        const n = gen.next();
+        const n = prefetched ?? timed(timing, 'read', () => gen.next());
+        prefetched = null;
         if (n.done) {
           if (!n.value.ok) throw new ImportFileChangedError(n.value.problems.listed[0]?.message ?? 'it no longer reads');
           break;
@@ -221,7 +266,7 @@ export async function applyImport(open: OpenPieces, preview: ImportPreview & { o
           const cruise = planner.cruise as MergePlan['cruise'];
           if (cruise.action !== 'unchanged') await db.cruises.put(cruise.value);
         } else if (p.kind === 'observations') {
-          plan = await planner.observations(p);
+          plan = await timedAsync(timing, 'plan', () => planner.observations(p));
           for (const item of plan.items) {
             const want = preview.expected.get(item.id);
             if (want === undefined) throw new ImportFileChangedError(`observation ${item.id} is new in it`);
@@ -230,12 +275,25 @@ export async function applyImport(open: OpenPieces, preview: ImportPreview & { o
           planned += plan.items.length;
           done += p.observations.length;
         } else if (p.kind === 'track') {
-          plan = await planner.track(p);
+          plan = await timedAsync(timing, 'planTrack', () => planner.track(p));
           done += p.points.length;
         } else plan = planner.photosPiece(p);
         if (plan) {
           const rows = planRows(plan, opts, at);
-          await writePlanInTransaction(db, plan, rows);
+          const ready = plan;
+          // The next piece is read (parsed, checked) while IndexedDB writes this one outside
+          // this thread, so the two overlap; memory holds at most two pieces. The writes are
+          // awaited in this same turn: awaiting them later, after other awaits, would leave
+          // Dexie's transaction zone and the transaction would commit early. The next piece is
+          // planned only after, so its plan sees these writes.
+          const writing = writePlanInTransaction(db, ready, rows);
+          try {
+            prefetched = timed(timing, 'read', () => gen.next());
+          } catch (err) {
+            writing.catch(() => undefined);
+            throw err;
+          }
+          await timedAsync(timing, 'write', () => writing);
           result.observations += plan.putCurrent.length;
           result.history += rows.revisions.length;
           result.conflicts += rows.conflicts.length;

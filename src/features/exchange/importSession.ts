@@ -3,7 +3,7 @@
 // src/db/importStream.ts). The same code runs in the import worker, where the file is read
 // with FileReaderSync a few megabytes at a time, and on the main thread where there is no
 // worker (tests under jsdom), where the file's bytes are read once into memory.
-import { applyImport, previewImport, type ApplyResult, type ImportPreview, type OpenPieces } from '../../db';
+import { applyImport, previewImport, type ApplyResult, type ImportPreview, type ImportTiming, type OpenPieces } from '../../db';
 import { looksLikeZip } from '../../format/archive';
 import { readArchive } from '../../format/archiveRead';
 import { LIMITS } from '../../format/limits';
@@ -36,6 +36,8 @@ export class ImportSession {
   private photos: PhotoBytes = new Map();
   /** Where the reading's progress goes: the preview's bar; the apply shows its writes instead. */
   private readProgress: (fraction: number) => void = () => {};
+  /** Set by a benchmark to learn where each pass spends its time (src/db/importStream.ts). */
+  timing: { preview: ImportTiming; apply: ImportTiming } | null = null;
 
   constructor(
     private readonly file: Blob,
@@ -75,7 +77,7 @@ export class ImportSession {
       };
       this.open = (route, checkedHash) => openLog(src, checkedHash === undefined ? { route } : { route, checkedHash });
     }
-    const preview = await previewImport(this.open, { photos: this.photos });
+    const preview = await previewImport(this.open, this.timing ? { photos: this.photos, timing: this.timing.preview } : { photos: this.photos });
     if (!preview.ok) return { ok: false, fileName, problems: preview.problems };
     this.preview = preview;
     return { ok: true, fileName, summary: preview.summary };
@@ -87,6 +89,7 @@ export class ImportSession {
     if (!preview || !open) throw new Error('the import has no preview to apply');
     this.readProgress = () => {};
     const total = Math.max(1, preview.summary.totals.observations + preview.summary.totals.trackPoints);
-    return applyImport(open, preview, { source: this.fileName, photos: this.photos, onProgress: (done) => onProgress('apply', done / total) });
+    const opts = { source: this.fileName, photos: this.photos, onProgress: (done: number) => onProgress('apply', done / total) };
+    return applyImport(open, preview, this.timing ? { ...opts, timing: this.timing.apply } : opts);
   }
 }

@@ -21,6 +21,8 @@ self.onmessage = async (ev: MessageEvent<{ url: string }>) => {
     const fetched = performance.now() - t0;
     t0 = performance.now();
     const session = new ImportSession(blob, 'bench.json');
+    const zero = () => ({ read: 0, plan: 0, planTrack: 0, write: 0 });
+    session.timing = { preview: zero(), apply: zero() };
     const preview = await session.start(() => {});
     if (!preview.ok) throw new Error(`the benchmark log was rejected: ${preview.problems.listed[0]?.message}`);
     const previewMs = performance.now() - t0;
@@ -29,7 +31,7 @@ self.onmessage = async (ev: MessageEvent<{ url: string }>) => {
     const apply = performance.now() - t1;
     const ms = performance.now() - t0;
     const cruiseId = preview.summary.cruise.value.id;
-    const result: ImportWorkerResult = { ms, stages: { fetched, preview: previewMs, apply }, points: await countTrackPoints(cruiseId), cruiseId, route: preview.summary.route, bytes: blob.size };
+    const result: ImportWorkerResult = { ms, stages: { fetched, preview: previewMs, apply, ...Object.fromEntries(Object.entries(session.timing.preview).map(([k, v]) => [`preview.${k}`, v])), ...Object.fromEntries(Object.entries(session.timing.apply).map(([k, v]) => [`apply.${k}`, v])) }, points: await countTrackPoints(cruiseId), cruiseId, route: preview.summary.route, bytes: blob.size };
     self.postMessage({ ok: true, result });
   } catch (err) {
     self.postMessage({ ok: false, message: err instanceof Error ? `${err.name}: ${err.message}` : String(err) });
