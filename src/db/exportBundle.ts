@@ -8,6 +8,7 @@ import { RecordNotFoundError } from './errors';
 import type { PhotoRecord } from './rows';
 import { decodeChunk } from './trackChunk';
 import { allTrackChunksIn, countTrackPointsIn } from './trackPoints';
+import { cruiseObservations } from './cruiseObservations';
 
 export interface CruiseExport {
   bundle: LogBundle;
@@ -34,7 +35,7 @@ export async function readCruiseExport(cruiseId: string, opts: { photoBytes?: bo
   const { bundle, blobs } = await db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = await db.cruises.get(cruiseId);
     if (!cruise) throw new RecordNotFoundError('cruise', cruiseId);
-    const observations = await db.observations.where('cruiseId').equals(cruiseId).toArray();
+    const observations = await cruiseObservations(db, cruiseId).toArray();
     const ids = observations.map((o) => o.id);
     const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();
@@ -65,7 +66,7 @@ export async function cruiseChangeStamp(cruiseId: string): Promise<string> {
   const db = getDb();
   return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = await db.cruises.get(cruiseId);
-    const obs = await db.observations.where('cruiseId').equals(cruiseId).count();
+    const obs = await cruiseObservations(db, cruiseId).count();
     const revs = await db.revisions.count();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).count();
     const track = await countTrackPointsIn(db, cruiseId);

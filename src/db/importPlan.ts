@@ -12,6 +12,7 @@ import type { ConflictRecord, ObservationRevision, PhotoRecord } from './rows';
 import { allTrackChunksIn, mergeTrackPointsInTransaction, storedTrackTimes } from './trackPoints';
 import { toTimed } from './trackChunk';
 import { nowIso } from './validate';
+import { cruiseObservations } from './cruiseObservations';
 
 /** The store changed between the preview and the apply; nothing was written. */
 export class StaleImportError extends FloeDbError {
@@ -43,7 +44,7 @@ export async function loadMergeTarget(cruiseId: string): Promise<MergeTarget> {
   const db = getDb();
   return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = (await db.cruises.get(cruiseId)) ?? null;
-    const observations = await db.observations.where('cruiseId').equals(cruiseId).toArray();
+    const observations = await cruiseObservations(db, cruiseId).toArray();
     const ids = observations.map((o) => o.id);
     const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();

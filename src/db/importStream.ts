@@ -28,6 +28,7 @@ import { planRows, StaleImportError, writePlanInTransaction, type ApplyOptions, 
 import { storedTrackTimes } from './trackPoints';
 import { hourOf, instantOf } from './trackChunk';
 import { nowIso } from './validate';
+import { cruiseObservations } from './cruiseObservations';
 
 /** The file read differently the second time (changed on disk, or unreadable): nothing was written. */
 export class ImportFileChangedError extends FloeDbError {
@@ -158,7 +159,7 @@ class PiecePlanner {
     this.photoIds = new Set(await this.db.photos.where('cruiseId').equals(p.cruise.id).primaryKeys());
     this.nothingStored =
       stored === null &&
-      (await this.db.observations.where('cruiseId').equals(p.cruise.id).limit(1).count()) === 0 &&
+      (await cruiseObservations(this.db, p.cruise.id).limit(1).count()) === 0 &&
       (await this.db.trackChunks.where('[cruiseId+hour]').between([p.cruise.id, Dexie.minKey], [p.cruise.id, Dexie.maxKey], true, true).limit(1).count()) === 0;
     this.cruise = planCruiseOf({ cruise: stored, versions: () => undefined, hasTrackTime: () => false, hasPhoto: () => false }, p.cruise);
   }

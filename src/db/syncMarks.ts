@@ -8,6 +8,7 @@ import { getDb, writableDb } from './connection';
 import { mapWriteError } from './errors';
 import { photoMetaOf } from './exportBundle';
 import type { SyncMark, SyncStateRow } from './rows';
+import { cruiseObservations } from './cruiseObservations';
 
 /** Marks documents as held by the server database `server`; marks already there are kept. */
 export async function markOnServer(marks: readonly SyncMark[]): Promise<void> {
@@ -85,7 +86,7 @@ export async function readSyncSource(cruiseId: string): Promise<SyncSource> {
   const db = getDb();
   return db.transaction('r', [db.cruises, db.observations, db.revisions, db.conflicts, db.trackChunks, db.photos], async () => {
     const cruise = (await db.cruises.get(cruiseId)) ?? null;
-    const current = await db.observations.where('cruiseId').equals(cruiseId).toArray();
+    const current = await cruiseObservations(db, cruiseId).toArray();
     const ids = current.map((o) => o.id);
     const revisions = ids.length === 0 ? [] : await db.revisions.where('observationId').anyOf(ids).toArray();
     const conflicts = await db.conflicts.where('cruiseId').equals(cruiseId).toArray();

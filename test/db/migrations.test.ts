@@ -18,6 +18,7 @@ import {
   type SchemaVersion,
 } from '../../src/db';
 import { liftDraftData, liftStoredObservation } from '../../src/db/upgradeIceTypes';
+import { cruiseObservations } from '../../src/db/cruiseObservations';
 import { expectLiftedWithoutLoss, MARKER } from '../format/liftCheck';
 import { comparable, fixtureFiles, loadFixture, readFixture } from './fixtures/load';
 import { freshDatabasePerTest } from './helpers';
@@ -226,5 +227,29 @@ describe('version 3: deformation and snow in groups of their own', () => {
 
   it('leaves drafts it does not recognise as they are', () => {
     for (const d of [null, 'text', { totalConcentration: 6 }, { draft: { categories: 'x' } }]) expect(liftDraftData(d)).toEqual(d);
+  });
+});
+
+describe('version 7: no index on cruiseId alone for observations', () => {
+  it('drops the index over the version-6 fixture and still finds every observation of each cruise, in time order', async () => {
+    const v6File = fixtureFiles().find((f) => f.version === 6);
+    if (!v6File) throw new Error('no version-6 fixture');
+    const fx = readFixture(v6File.file);
+    await loadFixture(db.name(), fx);
+    selectDatabase(db.name());
+    await openFloeDb();
+    const d = getDb();
+    const indexes = d.observations.schema.indexes.map((i) => i.name);
+    expect(indexes).toContain('[cruiseId+time]');
+    expect(indexes).toContain('observerId');
+    expect(indexes).not.toContain('cruiseId');
+    const all = await d.observations.toArray();
+    const cruiseIds = [...new Set(all.map((o) => o.cruiseId))];
+    expect(cruiseIds.length).toBeGreaterThan(0);
+    for (const id of cruiseIds) {
+      const byIndex = await cruiseObservations(d, id).toArray();
+      const byScan = all.filter((o) => o.cruiseId === id).sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : a.id < b.id ? -1 : 1));
+      expect(byIndex.map((o) => o.id)).toEqual(byScan.map((o) => o.id));
+    }
   });
 });

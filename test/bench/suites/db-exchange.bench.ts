@@ -17,7 +17,7 @@ import { exportLogJson } from '../../../src/format/encode';
 import { launchChromium, type Browser } from '../../e2e/harness/browser';
 import { DB_PAGE_DIR, gotoDbPage, serveDbPage, type DbPageApi } from '../../e2e/harness/db-page';
 import { bigCruise } from '../bigCruise';
-import { absoluteRow, ratioRow, type BenchRow, type BenchSuite } from '../bench-kit';
+import { absoluteRow, contextRow, ratioRow, type BenchRow, type BenchSuite } from '../bench-kit';
 
 type W = Window & { floeDbPage: DbPageApi };
 
@@ -78,6 +78,10 @@ export const suite: BenchSuite = {
       const floor = await session((page) => page.evaluate((u) => (window as unknown as W).floeDbPage.bench.benchBareObservationPut(u), url), floorProfile).finally(() =>
         rm(floorProfile, { recursive: true, force: true }),
       );
+      const rawProfile = await mkdtemp(join(tmpdir(), 'floe-bench-raw-'));
+      const raw = await session((page) => page.evaluate((u) => (window as unknown as W).floeDbPage.bench.benchRawObservationPut(u), url), rawProfile).finally(() =>
+        rm(rawProfile, { recursive: true, force: true }),
+      );
       const cruiseId = imp.value.cruiseId;
       const streamed = await session((page) => page.evaluate((id) => (window as unknown as W).floeDbPage.bench.benchStreamExport(id), cruiseId));
       const whole = await session((page) => page.evaluate((id) => (window as unknown as W).floeDbPage.bench.benchWholeExport(id), cruiseId));
@@ -86,6 +90,7 @@ export const suite: BenchSuite = {
       rows.push(ratioRow('same vs the whole-file import (before: read whole, plan, apply)', imp.value.ms, old.value.subject, 'ms', 1));
       rows.push(ratioRow('context: the import in pieces vs JSON.parse of the same text', imp.value.ms, parse.value, 'ms', 20));
       rows.push(ratioRow('context: the import in pieces vs the floor, one bare bulkPut of its observations into an empty store', imp.value.ms, floor.value, 'ms', 2));
+      rows.push(contextRow('context: the floor itself vs raw IndexedDB puts of the same observations (no Dexie, primary key only)', floor.value, raw.value, 'ms'));
       rows.push(absoluteRow('peak renderer memory, import in pieces', imp.peakMb, 'MB', 1024));
       rows.push(absoluteRow('context: peak renderer memory, whole-file import (before)', old.peakMb, 'MB', 1024));
       rows.push(ratioRow('export of the full log streamed from the store vs read whole', streamed.value.ms, whole.value.ms, 'ms', 1.5));

@@ -201,6 +201,38 @@ export async function benchBareObservationPut(url: string): Promise<number> {
   return performance.now() - t0;
 }
 
+/**
+ * Below the floor: the same 50,000 observations put straight into a raw IndexedDB store with a
+ * primary key only (no Dexie, no index), in one strict transaction: what the browser's own
+ * storage costs for these values on this machine.
+ */
+export async function benchRawObservationPut(url: string): Promise<number> {
+  const r = readLogText(await (await fetch(url)).text(), { rules: null });
+  if (!r.ok) throw new Error('rejected');
+  const observations = r.bundle.observations;
+  const name = `floe-bench-raw-${Date.now()}`;
+  const db = await new Promise<IDBDatabase>((resolve, reject) => {
+    const open = indexedDB.open(name, 1);
+    open.onupgradeneeded = () => open.result.createObjectStore('observations', { keyPath: 'id' });
+    open.onsuccess = () => resolve(open.result);
+    open.onerror = () => reject(open.error ?? new Error('the raw store did not open'));
+  });
+  try {
+    const t0 = performance.now();
+    await new Promise<void>((resolve, reject) => {
+      const tx = db.transaction('observations', 'readwrite', { durability: 'strict' });
+      const store = tx.objectStore('observations');
+      for (const o of observations) store.put(o);
+      tx.oncomplete = () => resolve();
+      tx.onabort = () => reject(tx.error ?? new Error('the raw write was aborted'));
+    });
+    return performance.now() - t0;
+  } finally {
+    db.close();
+    indexedDB.deleteDatabase(name);
+  }
+}
+
 /** JSON.parse of the fetched text: the least any reader of the file must do. */
 export async function benchParseOnly(url: string): Promise<number> {
   const text = await (await fetch(url)).text();
