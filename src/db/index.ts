@@ -23,7 +23,6 @@ export {
   getObservation,
   listObservations,
   countObservations,
-  listObservationsByObserver,
   observationHistory,
   type SaveObservationOptions,
   type SaveResult,

@@ -168,16 +168,6 @@ export function countObservations(cruiseId: string): Promise<number> {
     .count();
 }
 
-/** Every observation one observer made, across cruises, in time order. */
-export async function listObservationsByObserver(observerId: string, { includeDeleted = false } = {}): Promise<Observation[]> {
-  const rows = await getDb()
-    .observations.where('observerId')
-    .equals(observerId)
-    .filter((o) => includeDeleted || !o.deleted)
-    .toArray();
-  return rows.sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : 0));
-}
-
 /** Every version of an observation, oldest first; the last one is the current version. */
 export async function observationHistory(id: string): Promise<Observation[]> {
   const db = getDb();

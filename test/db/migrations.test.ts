@@ -241,7 +241,6 @@ describe('version 7: no index on cruiseId alone for observations', () => {
     const d = getDb();
     const indexes = d.observations.schema.indexes.map((i) => i.name);
     expect(indexes).toContain('[cruiseId+time]');
-    expect(indexes).toContain('observerId');
     expect(indexes).not.toContain('cruiseId');
     const all = await d.observations.toArray();
     const cruiseIds = [...new Set(all.map((o) => o.cruiseId))];
@@ -250,6 +249,28 @@ describe('version 7: no index on cruiseId alone for observations', () => {
       const byIndex = await cruiseObservations(d, id).toArray();
       const byScan = all.filter((o) => o.cruiseId === id).sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : a.id < b.id ? -1 : 1));
       expect(byIndex.map((o) => o.id)).toEqual(byScan.map((o) => o.id));
+    }
+  });
+});
+
+describe('version 8: no index on observerId for observations', () => {
+  it('drops the index over the version-7 fixture and an observer is still found per cruise, in time order', async () => {
+    const v7File = fixtureFiles().find((f) => f.version === 7);
+    if (!v7File) throw new Error('no version-7 fixture');
+    const fx = readFixture(v7File.file);
+    await loadFixture(db.name(), fx);
+    selectDatabase(db.name());
+    await openFloeDb();
+    const d = getDb();
+    expect(d.observations.schema.indexes.map((i) => i.name)).toEqual(['[cruiseId+time]']);
+    const all = await d.observations.toArray();
+    const pairs = [...new Set(all.filter((o) => !o.deleted).map((o) => `${o.cruiseId} ${o.observerId}`))];
+    expect(pairs.length).toBeGreaterThan(1);
+    for (const pair of pairs) {
+      const [cruiseId, observerId] = pair.split(' ') as [string, string];
+      const listed = await listObservations(cruiseId, { observerId });
+      const byScan = all.filter((o) => o.cruiseId === cruiseId && o.observerId === observerId && !o.deleted).sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : a.id < b.id ? -1 : 1));
+      expect(listed.map((o) => o.id)).toEqual(byScan.map((o) => o.id));
     }
   });
 });

@@ -6,7 +6,6 @@ import {
   getObservation,
   InvalidRecordError,
   listObservations,
-  listObservationsByObserver,
   RecordNotFoundError,
   observationHistory,
   ObservationConflictError,
@@ -172,11 +171,6 @@ describe('listing', () => {
     ]);
     expect((await listObservations(a.id, { observerId: 'obs-rm' })).map((o) => o.time)).toEqual(['2026-02-10T06:00:00Z', '2026-02-11T00:00:00Z']);
     expect(await listObservations(b.id)).toHaveLength(1);
-    expect((await listObservationsByObserver('obs-ak')).map((o) => o.time)).toEqual([
-      '2026-02-10T07:00:00Z',
-      '2026-02-10T07:30:00Z',
-      '2026-02-10T08:00:00Z',
-    ]);
     expect(await countObservations(a.id)).toBe(4);
   });
 });
