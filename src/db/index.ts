@@ -45,7 +45,7 @@ export { decodeChunk, pointAt, type TrackChunkRow } from './trackChunk';
 export { attachPhoto, removePhoto, getPhoto, listPhotos, type AttachPhotoInput, type PhotoEdit, type RemovePhotoResult } from './photos';
 export { requestPersistence, storageStatus, type StorageStatus } from './persistence';
 export { isIsoUtc } from './validate';
-export { applyImport, ImportFileChangedError, previewImport, type ImportPreview, type ImportSummary, type ImportTiming, type OpenPieces } from './importStream';
+export { applyImport, ImportFileChangedError, KEEP_PIECES_MAX_BYTES, previewImport, type ImportPreview, type ImportSummary, type ImportTiming, type OpenPieces } from './importStream';
 export { applyMergePlan, loadMergeTarget, listConflicts, markConflictResolved, StaleImportError, type ApplyOptions, type ApplyResult } from './importPlan';
 export { markOnServer, heldOnServer, serverMarks, revisionsOnServer, getSyncState, putSyncState, forgetServer, readSyncSource, type SyncSource } from './syncMarks';
 export { readCruiseExport, cruiseChangeStamp, type CruiseExport } from './exportBundle';

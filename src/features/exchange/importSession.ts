@@ -3,7 +3,7 @@
 // src/db/importStream.ts). The same code runs in the import worker, where the file is read
 // with FileReaderSync a few megabytes at a time, and on the main thread where there is no
 // worker (tests under jsdom), where the file's bytes are read once into memory.
-import { applyImport, previewImport, type ApplyResult, type ImportPreview, type ImportTiming, type OpenPieces } from '../../db';
+import { applyImport, KEEP_PIECES_MAX_BYTES, previewImport, type ApplyResult, type ImportPreview, type ImportTiming, type OpenPieces } from '../../db';
 import { looksLikeZip } from '../../format/archive';
 import { readArchive } from '../../format/archiveRead';
 import { LIMITS } from '../../format/limits';
@@ -77,7 +77,9 @@ export class ImportSession {
       };
       this.open = (route, checkedHash) => openLog(src, checkedHash === undefined ? { route } : { route, checkedHash });
     }
-    const preview = await previewImport(this.open, this.timing ? { photos: this.photos, timing: this.timing.preview } : { photos: this.photos });
+    // A file up to the size whose pieces fit in memory is read once (src/db/importStream.ts).
+    const popts = { photos: this.photos, keepPieces: file.size <= KEEP_PIECES_MAX_BYTES };
+    const preview = await previewImport(this.open, this.timing ? { ...popts, timing: this.timing.preview } : popts);
     if (!preview.ok) return { ok: false, fileName, problems: preview.problems };
     this.preview = preview;
     return { ok: true, fileName, summary: preview.summary };
@@ -90,6 +92,11 @@ export class ImportSession {
     this.readProgress = () => {};
     const total = Math.max(1, preview.summary.totals.observations + preview.summary.totals.trackPoints);
     const opts = { source: this.fileName, photos: this.photos, onProgress: (done: number) => onProgress('apply', done / total) };
-    return applyImport(open, preview, this.timing ? { ...opts, timing: this.timing.apply } : opts);
+    try {
+      return await applyImport(open, preview, this.timing ? { ...opts, timing: this.timing.apply } : opts);
+    } finally {
+      // The kept pieces are let go: another try of the apply reads the file again.
+      delete preview.pieces;
+    }
   }
 }
