@@ -24,10 +24,16 @@ function opener(text: () => string): OpenPieces {
     openLog({ pieces: () => stringSource(text(), 501), whole: () => ({ text: text(), byteLength: text().length }) }, { route, rules: null, observationBatch: 3, trackBatch: 7, ...(checkedHash === undefined ? {} : { checkedHash }) });
 }
 
-async function importInPieces(text: string) {
-  const preview = await previewImport(opener(() => text));
+/** An opener the apply must not call: the preview kept every piece. */
+const noSecondReading: OpenPieces = () => {
+  throw new Error('the file was read a second time');
+};
+
+async function importInPieces(text: string, keepPieces = false) {
+  const preview = await previewImport(opener(() => text), { keepPieces });
   if (!preview.ok) throw new Error(JSON.stringify(preview.problems));
-  const applied = await applyImport(opener(() => text), preview, { source: 'pieces.json' });
+  expect(preview.pieces !== undefined).toBe(keepPieces);
+  const applied = await applyImport(keepPieces ? noSecondReading : opener(() => text), preview, { source: 'pieces.json' });
   return { preview, applied };
 }
 
@@ -68,11 +74,14 @@ describe('import in pieces', { timeout: 300_000 }, () => {
         const wholeCounts = [];
         for (const f of files) wholeCounts.push((await importWhole(f)).plan.counts);
         const afterWhole = await storeContent();
-        await wipe();
-        const pieceCounts = [];
-        for (const f of files) pieceCounts.push((await importInPieces(f)).preview.summary.counts);
-        expect(await storeContent()).toEqual(afterWhole);
-        expect(pieceCounts).toEqual(wholeCounts);
+        // Read twice (a large file), then read once with the preview's pieces kept (a file that fits).
+        for (const keep of [false, true]) {
+          await wipe();
+          const pieceCounts = [];
+          for (const f of files) pieceCounts.push((await importInPieces(f, keep)).preview.summary.counts);
+          expect(await storeContent()).toEqual(afterWhole);
+          expect(pieceCounts).toEqual(wholeCounts);
+        }
       }),
       { numRuns: 25 },
     );
@@ -104,30 +113,33 @@ describe('import in pieces', { timeout: 300_000 }, () => {
     expect(await storeContent()).toEqual(before);
   });
 
-  it('an edit saved between preview and apply makes the apply write nothing (stale preview)', async () => {
-    const b = sampleBundle();
-    await importInPieces(textOf(b));
-    const text = textOf(laterFile(b, 0));
-    const preview = await previewImport(opener(() => text));
-    if (!preview.ok) throw new Error('rejected');
-    const target = b.observations[b.observations.length - 1] as LogBundle['observations'][number];
-    await saveObservation({ ...target, notes: 'edited meanwhile' }, { expectedRevision: target.revision, savedBy: target.observerId });
-    const before = await storeContent();
-    await expect(applyImport(opener(() => text), preview, { source: 'stale.json' })).rejects.toBeInstanceOf(StaleImportError);
-    expect(await storeContent()).toEqual(before);
-  });
+  for (const keepPieces of [false, true]) {
+    const how = keepPieces ? 'the preview\'s pieces kept' : 'the file read again';
+    it(`an edit saved between preview and apply makes the apply write nothing (stale preview; ${how})`, async () => {
+      const b = sampleBundle();
+      await importInPieces(textOf(b));
+      const text = textOf(laterFile(b, 0));
+      const preview = await previewImport(opener(() => text), { keepPieces });
+      if (!preview.ok) throw new Error('rejected');
+      const target = b.observations[b.observations.length - 1] as LogBundle['observations'][number];
+      await saveObservation({ ...target, notes: 'edited meanwhile' }, { expectedRevision: target.revision, savedBy: target.observerId });
+      const before = await storeContent();
+      await expect(applyImport(keepPieces ? noSecondReading : opener(() => text), preview, { source: 'stale.json' })).rejects.toBeInstanceOf(StaleImportError);
+      expect(await storeContent()).toEqual(before);
+    });
 
-  it('a full disk at the last write leaves the store untouched', async () => {
-    const b = sampleBundle();
-    const text = textOf(b);
-    const preview = await previewImport(opener(() => text));
-    if (!preview.ok) throw new Error('rejected');
-    const before = await storeContent();
-    selectDatabase(db.name()).use(quotaFailure((table) => table === 'trackChunks'));
-    await expect(applyImport(opener(() => text), preview, { source: 'full.json' })).rejects.toMatchObject({ kind: 'storage-full' });
-    selectDatabase(db.name());
-    expect(await storeContent()).toEqual(before);
-  });
+    it(`a full disk at the last write leaves the store untouched (${how})`, async () => {
+      const b = sampleBundle();
+      const text = textOf(b);
+      const preview = await previewImport(opener(() => text), { keepPieces });
+      if (!preview.ok) throw new Error('rejected');
+      const before = await storeContent();
+      selectDatabase(db.name()).use(quotaFailure((table) => table === 'trackChunks'));
+      await expect(applyImport(keepPieces ? noSecondReading : opener(() => text), preview, { source: 'full.json' })).rejects.toMatchObject({ kind: 'storage-full' });
+      selectDatabase(db.name());
+      expect(await storeContent()).toEqual(before);
+    });
+  }
 
   it('a rejected file gives the whole reader\'s report and writes nothing', async () => {
     const text = textOf(sampleBundle()).replace('"totalConcentration":', '"totalConcentration":11,"x":');
