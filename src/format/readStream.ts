@@ -20,6 +20,7 @@ import { LIMITS } from './limits';
 import { migrateToCurrent, VALIDATORS } from './migrate';
 import type { Problem, ProblemReport } from './problems';
 import { photoWarnings, readLogText, ruleFindings, type ReadOptions, type ReadResult, type ReadWarning, type RuleCheck } from './read';
+import { nextListRun } from './listRuns';
 import { JsonScanner } from './scan';
 import { CURRENT_VERSION, FORMAT_NAME, TRACK_COLUMNS, type FileObservation, type LogBundle, type LogFileV2, type PhotoMeta, type TrackRow } from './types';
 
@@ -45,7 +46,7 @@ export type LogVerdict =
   | { ok: false; problems: ProblemReport };
 
 /** The piece reader's own end: accepted, or given up with a reason (for tests and logs). */
-export type PieceVerdict = (LogVerdict & { ok: true }) | { ok: false; reason: string };
+export type PieceVerdict = (LogVerdict & { ok: true; charScanned: number }) | { ok: false; reason: string };
 
 /** Next piece of the file's text, or null at the end. */
 export type TextSource = () => string | null;
@@ -63,6 +64,13 @@ export interface PieceOptions {
    * import, inside its transaction, checks the file it read is the one the preview checked).
    */
   checkedHash?: string;
+  /**
+   * Text of a long list taken per run when its layout allows (listRuns.ts; default 1 MiB). The
+   * pieces handed out are the same whatever the run.
+   */
+  runChars?: number;
+  /** Read the long lists character by character only (the reference way, for tests). */
+  charScan?: boolean;
 }
 
 /** A streaming hash of text (two 32-bit FNV-1a style lanes): equal text, equal hash. */
@@ -145,6 +153,8 @@ function* piecesOf(source: TextSource, opts: PieceOptions): Generator<LogPiece, 
 
   const listKind = (depth: number, path: readonly string[]): 'observations' | 'track' | null =>
     depth === 2 && path[0] === 'observations' ? 'observations' : depth === 3 && path[0] === 'track' && path[1] === 'points' ? 'track' : null;
+  scanner.pauseOnWatch = opts.charScan !== true;
+  const runChars = Math.max(1, opts.runChars ?? 1 << 20);
   scanner.watchArray = (depth, path) => {
     const kind = listKind(depth, path);
     return kind === 'observations' ? obsBatch : kind === 'track' ? trackBatch : 0;
@@ -193,6 +203,17 @@ function* piecesOf(source: TextSource, opts: PieceOptions): Generator<LogPiece, 
     } catch {
       throw new GiveUp('a list element is not JSON');
     }
+    charScanned += items.length;
+    if (pending.length > 0) {
+      items = [...pending, ...items];
+      pending = [];
+    }
+    return listPiece(items);
+  }
+
+  /** The next piece of the open list: `items` follow the elements handed out so far. */
+  function listPiece(items: unknown[]): LogPiece {
+    const b = big as NonNullable<typeof big>;
     const first = b.index;
     b.index += items.length;
     if (b.kind === 'observations') {
@@ -232,6 +253,13 @@ function* piecesOf(source: TextSource, opts: PieceOptions): Generator<LogPiece, 
 
   let buf = '';
   let skelFrom = 0;
+  // Taking the open list a run at a time (listRuns.ts): whether a comma came last, and the
+  // elements parsed but not yet handed out (fewer than a piece).
+  let listRun: { afterComma: boolean; carry: unknown[] } | null = null;
+  // Elements of the long lists read after a character scan (the layout did not allow runs).
+  let charScanned = 0;
+  // Elements a run parsed before the scan took over, handed out with the scan's first piece.
+  let pending: unknown[] = [];
   let firstPiece = true;
   for (;;) {
     let piece = source();
@@ -242,48 +270,85 @@ function* piecesOf(source: TextSource, opts: PieceOptions): Generator<LogPiece, 
       hash.add(piece);
       buf += piece;
     }
-    const fault = scanner.scan(buf, final);
-    if (fault) throw new GiveUp(fault.message);
-    for (const e of scanner.events) {
-      if (e.type === 'key') {
-        skel += buf.slice(skelFrom, e.at);
-        skelFrom = e.at;
-        if (e.depth === 1) {
-          topKey = e.key;
-          // Every list piece is checked with the head: no member may come after the lists but them.
-          if (listsStarted && e.key !== 'observations' && e.key !== 'track' && e.key !== 'photos') throw new GiveUp(`the member "${e.key}" comes after the lists`);
-          memberAt.set(e.key, skel.length);
-        } else if (topKey === 'track') trackMemberAt.set(e.key, skel.length);
-      } else if (e.type === 'open') {
-        const kind = e.watched ? listKind(e.depth, e.path) : null;
-        if (kind === null) continue;
-        skel += buf.slice(skelFrom, e.at + 1);
-        skelFrom = e.at + 1;
-        if (!head) yield startHead();
-        listsStarted = true;
-        if (kind === 'track') {
-          const start = memberAt.get('track') ?? 0;
-          const opening = parseOpening(`{${skel.slice(start)}`, (trackMemberAt.get('points') ?? skel.length) - start + 1, '}}');
-          trackHead = (opening as { track?: Record<string, unknown> }).track ?? null;
-          if (!trackHead || typeof trackHead !== 'object') throw new GiveUp('the track has no opening');
+    // The scan and the runs of a long list take turns until the text in hand is used up.
+    for (;;) {
+      if (listRun) {
+        const b = big as NonNullable<typeof big>;
+        const r = nextListRun(buf, b.from, final, { trusted, maxStringLength: limits.maxStringLength, maxDepth: limits.maxDepth, minChars: runChars, maxChars: Math.max(16 * runChars, limits.maxStringLength + 64), afterComma: listRun.afterComma });
+        if (r.kind === 'more') break;
+        if (r.kind === 'scan') {
+          // The rest of this list is scanned character by character, as a file of another
+          // layout; the pieces are cut where the scan alone would have cut them.
+          pending = listRun.carry;
+          scanner.resumeInList(b.from, b.index + pending.length, pending.length);
+          b.cut = b.index + pending.length > 0;
+          listRun = null;
+        } else {
+          const carry = listRun.carry;
+          for (const item of r.items) carry.push(item);
+          if (b.index + carry.length > limits.maxArrayLength) throw new GiveUp(`an array with more than ${limits.maxArrayLength} elements`);
+          const size = b.kind === 'observations' ? obsBatch : trackBatch;
+          let at = 0;
+          for (; carry.length - at >= size; at += size) yield listPiece(carry.slice(at, at + size));
+          listRun.carry = at === 0 ? carry : carry.slice(at);
+          if (r.kind === 'run') {
+            b.from = r.next;
+            listRun.afterComma = true;
+            continue;
+          }
+          if (listRun.carry.length > 0) yield listPiece(listRun.carry);
+          skelFrom = r.close;
+          big = null;
+          listRun = null;
+          scanner.resumeAfterList(r.close);
         }
-        big = { kind, from: e.at + 1, index: 0, cut: false };
-      } else if (e.type === 'cut') {
-        const b = big as NonNullable<typeof big>;
-        const p = batch(buf.slice(b.from, e.at), false);
-        b.from = e.at + 1;
-        b.cut = true;
-        if (p) yield p;
-      } else {
-        if (buf.charCodeAt(e.at) !== 93 /* ] */) throw new GiveUp('a list closed with "}"');
-        const b = big as NonNullable<typeof big>;
-        const p = batch(buf.slice(b.from, e.at), true);
-        if (p) yield p;
-        skelFrom = e.at;
-        big = null;
       }
+      const fault = scanner.scan(buf, final);
+      if (fault) throw new GiveUp(fault.message);
+      for (const e of scanner.events) {
+        if (e.type === 'key') {
+          skel += buf.slice(skelFrom, e.at);
+          skelFrom = e.at;
+          if (e.depth === 1) {
+            topKey = e.key;
+            // Every list piece is checked with the head: no member may come after the lists but them.
+            if (listsStarted && e.key !== 'observations' && e.key !== 'track' && e.key !== 'photos') throw new GiveUp(`the member "${e.key}" comes after the lists`);
+            memberAt.set(e.key, skel.length);
+          } else if (topKey === 'track') trackMemberAt.set(e.key, skel.length);
+        } else if (e.type === 'open') {
+          const kind = e.watched ? listKind(e.depth, e.path) : null;
+          if (kind === null) continue;
+          skel += buf.slice(skelFrom, e.at + 1);
+          skelFrom = e.at + 1;
+          if (!head) yield startHead();
+          listsStarted = true;
+          if (kind === 'track') {
+            const start = memberAt.get('track') ?? 0;
+            const opening = parseOpening(`{${skel.slice(start)}`, (trackMemberAt.get('points') ?? skel.length) - start + 1, '}}');
+            trackHead = (opening as { track?: Record<string, unknown> }).track ?? null;
+            if (!trackHead || typeof trackHead !== 'object') throw new GiveUp('the track has no opening');
+          }
+          big = { kind, from: e.at + 1, index: 0, cut: false };
+        } else if (e.type === 'cut') {
+          const b = big as NonNullable<typeof big>;
+          const p = batch(buf.slice(b.from, e.at), false);
+          b.from = e.at + 1;
+          b.cut = true;
+          if (p) yield p;
+        } else {
+          if (buf.charCodeAt(e.at) !== 93 /* ] */) throw new GiveUp('a list closed with "}"');
+          const b = big as NonNullable<typeof big>;
+          const p = batch(buf.slice(b.from, e.at), true);
+          if (p) yield p;
+          skelFrom = e.at;
+          big = null;
+        }
+      }
+      scanner.events.length = 0;
+      if (!scanner.paused) break;
+      // Paused at a long list's `[`: its elements are taken a run at a time.
+      listRun = { afterComma: false, carry: [] };
     }
-    scanner.events.length = 0;
     // Keep only what is not yet handed on: the open run of a list, or the text after the scan.
     let drop: number;
     if (big) drop = big.from;
@@ -321,7 +386,7 @@ function* piecesOf(source: TextSource, opts: PieceOptions): Generator<LogPiece, 
   warnings.push(...obsWarnings, ...historyWarnings);
   const textHash = hash.value();
   if (trusted && textHash !== opts.checkedHash) throw new GiveUp('the text is not the text that was checked');
-  return { ok: true, fromVersion: version, warnings, archivePaths, counts, route: 'pieces', textHash };
+  return { ok: true, fromVersion: version, warnings, archivePaths, counts, route: 'pieces', textHash, charScanned };
 }
 
 /** The pieces of a bundle already read whole, in the order the piece reader gives them. */

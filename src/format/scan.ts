@@ -71,6 +71,14 @@ export class JsonScanner {
   private every = 0;
   private sinceCut = 0;
   readonly events: ScanEvent[] = [];
+  /**
+   * Set by the reader: stop right after the `[` of a watched array (its `open` event the last
+   * one), so that the reader can take the array's elements without a character scan
+   * (listRuns.ts); it then hands back with resumeInList or resumeAfterList.
+   */
+  pauseOnWatch = false;
+  /** Whether the scan stopped at a watched array's opening (pauseOnWatch). */
+  paused = false;
 
   constructor(
     private readonly limits: ScanLimits = LIMITS,
@@ -196,6 +204,11 @@ export class JsonScanner {
             this.watchDepth = depth;
             this.every = every;
             this.sinceCut = 0;
+            if (this.pauseOnWatch) {
+              this.paused = true;
+              i++;
+              break;
+            }
           }
         }
       } else if (c === 93 /* ] */ || c === 125 /* } */) {
@@ -221,8 +234,28 @@ export class JsonScanner {
     if (resume >= 0) this.strStart = resume;
     this.depth = depth;
     this.pos = i;
+    if (this.paused) return null;
     if (final && depth > 0) return { offset: n, message: 'the file ends before all arrays and objects are closed: it is truncated' };
     return null;
+  }
+
+  /**
+   * Scan the paused watched array again from `pos`, a place between its elements (just after
+   * the `[` or after a comma between two elements) with `elements` before it, the last
+   * `sinceCut` of them not yet handed out in a piece.
+   */
+  resumeInList(pos: number, elements: number, sinceCut: number): void {
+    this.pos = pos;
+    this.commas[this.watchDepth] = elements;
+    this.sinceCut = sinceCut;
+    this.paused = false;
+  }
+
+  /** Go on after the paused watched array: `pos` is its closing `]`, scanned as any other. */
+  resumeAfterList(pos: number): void {
+    this.pos = pos;
+    this.watchDepth = -1;
+    this.paused = false;
   }
 
   /** For an array opening at depth 1-3 under `path`: elements per `cut`, or 0 not to watch it. */

@@ -121,7 +121,7 @@ describe('reading a log in pieces', { timeout: 600_000 }, () => {
     cases.forEach((c, i) => {
       // Whole and in small pieces, in turn (each case once: the machine is shared).
       const chars = i % 2 === 0 ? c.text.length + 1 : 61;
-      const run = pieces(stringSource(c.text, chars), { observationBatch: 1 + (i % 3), trackBatch: 1 + (i % 4) });
+      const run = pieces(stringSource(c.text, chars), { observationBatch: 1 + (i % 3), trackBatch: 1 + (i % 4), runChars: 1 + ((i * 37) % 400) });
       if (run.verdict.ok) accepted.push(`${c.name} (${chars})`);
       if (i % 10 !== 0) return;
       const via = collectPieces(openLog(source(c.text)));
@@ -143,7 +143,10 @@ describe('reading a log in pieces', { timeout: 600_000 }, () => {
     for (const [name, t] of Object.entries(broken)) {
       expect(t, name).not.toBe(text);
       expect(readLogText(t).ok, name).toBe(false);
-      for (const batch of [1, 2, 1000]) expect(pieces(stringSource(t, 13), { observationBatch: batch, trackBatch: batch }).verdict.ok, `${name} ${batch}`).toBe(false);
+      for (const batch of [1, 2, 1000]) {
+        expect(pieces(stringSource(t, 13), { observationBatch: batch, trackBatch: batch }).verdict.ok, `${name} ${batch}`).toBe(false);
+        expect(pieces(stringSource(t, 13), { observationBatch: batch, trackBatch: batch, runChars: 40 }).verdict.ok, `${name} ${batch} in runs`).toBe(false);
+      }
     }
   });
 
@@ -173,6 +176,81 @@ describe('reading a log in pieces', { timeout: 600_000 }, () => {
     const nul = Uint8Array.from(bytes);
     nul[100] = 0;
     expect(pieces(once(nul)).verdict.ok).toBe(false);
+  });
+
+  it('takes the long lists a run of lines at a time, handing out exactly the pieces of the character scan (fast-check)', () => {
+    fc.assert(
+      fc.property(
+        arbBundle,
+        fc.integer({ min: 1, max: 5_000 }),
+        fc.integer({ min: 1, max: 3_000 }),
+        fc.integer({ min: 1, max: 7 }),
+        fc.integer({ min: 1, max: 40 }),
+        (b, chars, runChars, observationBatch, trackBatch) => {
+          const text = exportLogJson(b, AT).join('');
+          const runs = pieces(stringSource(text, chars), { observationBatch, trackBatch, runChars });
+          const scanned = pieces(stringSource(text, chars), { observationBatch, trackBatch, charScan: true });
+          expect(runs.out).toStrictEqual(scanned.out);
+          expect(runs.verdict.ok).toBe(scanned.verdict.ok);
+          if (runs.verdict.ok && scanned.verdict.ok) {
+            expect(scanned.verdict.charScanned).toBe(runs.verdict.counts.observations + runs.verdict.counts.trackPoints);
+            expect({ ...runs.verdict, charScanned: 0 }).toStrictEqual({ ...scanned.verdict, charScanned: 0 });
+          }
+        },
+      ),
+      { numRuns: 100 },
+    );
+  });
+
+  it('hands a run to the character scan when its text could hide what the scan refuses, and judges the file the same', () => {
+    const text = exportLogJson(sampleBundle(), AT).join('');
+    // The first observation, set out over several lines as an indenting tool would.
+    const line = /\n {4}\{"id":[^\n]*/.exec(text)?.[0];
+    if (!line) throw new Error('no observation line');
+    const comma = line.endsWith(',') ? ',' : '';
+    const pretty = `\n${JSON.stringify(JSON.parse(line.trim().replace(/,$/, '')), null, 2)}${comma}`;
+    const variants: Record<string, [string, boolean]> = {
+      // [text, whether the whole reader accepts it]
+      'a key given twice in one observation': [text.replace('"notes":"', '"notes":"x","notes":"'), false],
+      'a key given twice, one with a blank before its colon': [text.replace('"notes":"', '"notes" :"x","notes":"'), false],
+      'a key with blanks before its colon': [text.replace('"notes":"', '"notes" \t:"'), true],
+      'a note that opens with a colon': [text.replace('"notes":"', '"notes":":'), true],
+      'a note of escaped quotes and backslashes around colons': [text.replace('"notes":"', `"notes":${JSON.stringify('a":b\\":c\\\\":d').slice(0, -1)}`), true],
+      'a note naming a prototype key': [text.replace('"notes":"', '"notes":"\\"constructor\\" '), true],
+      'a key that reaches the prototype': [text.replace('"notes":"', '"__proto__":{},"notes":"'), false],
+      'a track row with a key in an object': [text.replace(/\n {4}\["/, '\n    [{"a":1,"a":2},"'), false],
+      'deep nesting in an observation': [text.replace('"notes":"', `"notes":${'['.repeat(20)}1${']'.repeat(20)},"x":"`), false],
+      'one observation spread over several lines': [text.replace(line, pretty), true],
+      'the observations closed on the line of the last one': [text.replace(/\}\n {2}\],\n {2}"track"/, '}],\n  "track"'), true],
+      'no observations': [exportLogJson({ ...sampleBundle(), observations: [], history: [], conflicts: [], photos: [] }, AT).join(''), true],
+      'CRLF line ends': [text.replace(/\n/g, '\r\n'), true],
+    };
+    // The file's own layout (one element per line) never needs the character scan.
+    const own = pieces(stringSource(text, 97), { runChars: 50 });
+    expect(own.verdict.ok && own.verdict.charScanned).toBe(0);
+    for (const [name, [t, accepted]] of Object.entries(variants)) {
+      expect(t, name).not.toBe(text);
+      expect(readLogText(t).ok, name).toBe(accepted);
+      const scanned = pieces(stringSource(t, 97), { observationBatch: 2, trackBatch: 3, charScan: true });
+      expect(scanned.verdict.ok, name).toBe(accepted);
+      for (const runChars of [1, 50, 1 << 20]) {
+        const runs = pieces(stringSource(t, 97), { observationBatch: 2, trackBatch: 3, runChars });
+        expect(runs.verdict.ok, `${name} (${runChars})`).toBe(accepted);
+        expect(runs.out, `${name} (${runChars})`).toStrictEqual(scanned.out);
+      }
+    }
+    // Where a run cannot be taken (here: the text in hand ends inside the spread observation),
+    // the scan takes over the rest of that list, and the track is taken in runs again.
+    const spread = pieces(stringSource((variants['one observation spread over several lines'] as [string, boolean])[0], 97), { runChars: 50 });
+    expect(spread.verdict.ok && spread.verdict.charScanned).toBe(spread.verdict.ok && spread.verdict.counts.observations);
+    // A long string: over a small limit both ways refuse it, under it both read it.
+    for (const maxStringLength of [10, 100_000]) {
+      const limits = { maxStringLength };
+      const scanned = pieces(stringSource(text, 97), { charScan: true, limits });
+      const runs = pieces(stringSource(text, 97), { runChars: 60, limits });
+      expect(runs.verdict.ok, String(maxStringLength)).toBe(scanned.verdict.ok);
+      expect(runs.verdict.ok, String(maxStringLength)).toBe(maxStringLength > 10);
+    }
   });
 
   it('judges calendar times by digits as Date does (fast-check against Date.parse and back)', () => {
