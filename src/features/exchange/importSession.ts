@@ -36,6 +36,8 @@ export class ImportSession {
   private photos: PhotoBytes = new Map();
   /** Where the reading's progress goes: the preview's bar; the apply shows its writes instead. */
   private readProgress: (fraction: number) => void = () => {};
+  /** Largest file read once, its pieces kept for the apply (a benchmark lowers it to time the two readings). */
+  keepPiecesUpTo = KEEP_PIECES_MAX_BYTES;
   /** Set by a benchmark to learn where each pass spends its time (src/db/importStream.ts). */
   timing: { preview: ImportTiming; apply: ImportTiming } | null = null;
 
@@ -78,7 +80,7 @@ export class ImportSession {
       this.open = (route, checkedHash) => openLog(src, checkedHash === undefined ? { route } : { route, checkedHash });
     }
     // A file up to the size whose pieces fit in memory is read once (src/db/importStream.ts).
-    const popts = { photos: this.photos, keepPieces: file.size <= KEEP_PIECES_MAX_BYTES };
+    const popts = { photos: this.photos, keepPieces: file.size <= this.keepPiecesUpTo };
     const preview = await previewImport(this.open, this.timing ? { ...popts, timing: this.timing.preview } : popts);
     if (!preview.ok) return { ok: false, fileName, problems: preview.problems };
     this.preview = preview;
@@ -92,11 +94,6 @@ export class ImportSession {
     this.readProgress = () => {};
     const total = Math.max(1, preview.summary.totals.observations + preview.summary.totals.trackPoints);
     const opts = { source: this.fileName, photos: this.photos, onProgress: (done: number) => onProgress('apply', done / total) };
-    try {
-      return await applyImport(open, preview, this.timing ? { ...opts, timing: this.timing.apply } : opts);
-    } finally {
-      // The kept pieces are let go: another try of the apply reads the file again.
-      delete preview.pieces;
-    }
+    return applyImport(open, preview, this.timing ? { ...opts, timing: this.timing.apply } : opts);
   }
 }

@@ -169,9 +169,10 @@ export async function benchImport(url: string): Promise<{ subject: number; basel
 
 /**
  * The import as the Exchange screen makes it now: in the page's import worker, the file read in
- * pieces for the preview and again for the one-transaction apply.
+ * pieces for the preview, whose pieces the one-transaction apply writes; `readTwice`: as a file
+ * over the size whose pieces are kept, read again for the apply.
  */
-export function benchImportInPieces(url: string): Promise<ImportWorkerResult> {
+export function benchImportInPieces(url: string, readTwice = false): Promise<ImportWorkerResult> {
   return new Promise((resolve, reject) => {
     const w = new Worker(new URL('./import-worker.js', location.href), { type: 'module' });
     w.onmessage = (ev: MessageEvent<{ ok: true; result: ImportWorkerResult } | { ok: false; message: string }>) => {
@@ -183,7 +184,7 @@ export function benchImportInPieces(url: string): Promise<ImportWorkerResult> {
       w.terminate();
       reject(new Error(ev.message || 'the import worker failed'));
     };
-    w.postMessage({ url: new URL(url, location.href).href });
+    w.postMessage({ url: new URL(url, location.href).href, readTwice });
   });
 }
 
