@@ -1,14 +1,13 @@
 // Reading and writing log files for the commands: the same readers as the app (src/format), a
 // size check before a file is read, and problems printed one per line with the file name.
-import { closeSync, openSync, readFileSync, readSync, statSync } from 'node:fs';
+import { closeSync, openSync, readSync, statSync } from 'node:fs';
 import { looksLikeZip, writeArchive } from '../format/archive.ts';
 import { exportLogJson } from '../format/encode.ts';
 import { readArchive } from '../format/archiveRead.ts';
 import { LIMITS } from '../format/limits.ts';
 import { formatProblem, formatReport, type ProblemReport } from '../format/problems.ts';
 import { readLogText, type ReadWarning } from '../format/read.ts';
-import { bundlePieces, collectPieces, openLog, utf8Source, type LogCounts, type LogPiece, type LogSource, type LogVerdict } from '../format/readStream.ts';
-import { decodeLogText } from '../format/text.ts';
+import { bundlePieces, byteRangeSource, collectPieces, openLog, type LogCounts, type LogPiece, type LogVerdict } from '../format/readStream.ts';
 import type { LogBundle, PhotoBytes } from '../format/types.ts';
 import { writeFileAtomic } from './atomicWrite.ts';
 import type { CliIO } from './command.ts';
@@ -22,32 +21,17 @@ export type CheckedLog =
   | { ok: true; file: string; counts: LogCounts; fromVersion: number; warnings: ReadWarning[] }
   | { ok: false; file: string; problems: ProblemReport };
 
-/** Bytes read per piece of a JSON log. */
-const PIECE_BYTES = 4 << 20;
-
-/** The text of a file a piece at a time (readSync), for the reader in pieces. */
-function fileSource(file: string, size: number): LogSource {
-  return {
-    pieces: () => {
-      let fd: number | null = openSync(file, 'r');
-      let at = 0;
-      const buf = Buffer.alloc(PIECE_BYTES);
-      return utf8Source(() => {
-        if (fd === null) return null;
-        const n = at < size ? readSync(fd, buf, 0, PIECE_BYTES, at) : 0;
-        at += n;
-        if (n === 0) {
-          closeSync(fd);
-          fd = null;
-          return null;
-        }
-        return new Uint8Array(buf.buffer, buf.byteOffset, n).slice();
-      });
-    },
-    whole: () => {
-      const decoded = decodeLogText(readFileSync(file));
-      return decoded.ok ? { text: decoded.text, byteLength: size } : { problem: decoded.problem };
-    },
+/** The file's bytes from `at`, `n` of them (fewer at its end), read without waiting. */
+function fileRange(file: string, size: number): (at: number, n: number) => Uint8Array {
+  return (at, n) => {
+    const fd = openSync(file, 'r');
+    try {
+      const buf = Buffer.alloc(Math.max(0, Math.min(n, size - at)));
+      const got = readSync(fd, buf, 0, buf.length, at);
+      return new Uint8Array(buf.buffer, buf.byteOffset, got);
+    } finally {
+      closeSync(fd);
+    }
   };
 }
 
@@ -67,19 +51,12 @@ function openFile(file: string): { ok: true; pieces: Generator<LogPiece, LogVerd
     return unreadable(`cannot be read (${e instanceof Error ? e.message.replace(/^[A-Z]+: /, '') : String(e)})`);
   }
   if (size > LIMITS.maxFileBytes) return unreadable(`the file has ${size} bytes, more than the limit of ${LIMITS.maxFileBytes}`);
-  const head = Buffer.alloc(4);
-  const fd = openSync(file, 'r');
-  try {
-    readSync(fd, head, 0, 4, 0);
-  } finally {
-    closeSync(fd);
-  }
-  if (looksLikeZip(head)) {
-    const bytes = readFileSync(file);
-    const r = readArchive(new Uint8Array(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+  const range = fileRange(file, size);
+  if (looksLikeZip(range(0, 4))) {
+    const r = readArchive(range(0, size));
     return r.ok ? { ok: true, pieces: bundlePieces(r), photos: r.photos } : { ok: false, file, problems: r.problems };
   }
-  return { ok: true, pieces: openLog(fileSource(file, size)), photos: new Map() };
+  return { ok: true, pieces: openLog(byteRangeSource(size, range)), photos: new Map() };
 }
 
 export function loadLog(file: string): LoadedLog {

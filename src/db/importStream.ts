@@ -17,7 +17,7 @@
 // string on the main thread, readSync on the command line), because a transaction commits as
 // soon as it waits for anything that is not one of its own requests.
 import type { MergeCounts, MergePlan, MergeTarget, StoredVersions, TimeSeen } from '../format/merge';
-import { emptyPlan, planCruiseOf, planObservations, planPhotos, planTrack } from '../format/merge';
+import { emptyCounts, emptyPlan, planCruise, planObservations, planPhotos, planTrack } from '../format/merge';
 import type { Observation, TrackPoint } from '../domain/model';
 import type { ProblemReport } from '../format/problems';
 import type { ReadWarning } from '../format/read';
@@ -147,7 +147,7 @@ function lastTimeOnly(): TimeSeen {
 
 /** Plans the pieces one by one; `read` gives the store's state for a piece. */
 class PiecePlanner {
-  counts: MergeCounts = emptyPlan({ action: 'unchanged', value: null as never }).counts;
+  counts: MergeCounts = emptyCounts();
   cruise: MergePlan['cruise'] | null = null;
   expected = new Map<string, number | null>();
   seen: TimeSeen = lastTimeOnly();
@@ -181,7 +181,7 @@ class PiecePlanner {
       stored === null &&
       (await cruiseObservations(this.db, p.cruise.id).limit(1).count()) === 0 &&
       (await this.db.trackChunks.where('[cruiseId+hour]').between([p.cruise.id, Dexie.minKey], [p.cruise.id, Dexie.maxKey], true, true).limit(1).count()) === 0;
-    this.cruise = planCruiseOf({ cruise: stored, versions: () => undefined, hasTrackTime: () => false, hasPhoto: () => false }, p.cruise);
+    this.cruise = planCruise(stored, p.cruise);
   }
 
   async observations(p: LogPiece & { kind: 'observations' }): Promise<MergePlan> {

@@ -97,7 +97,8 @@ function mergeObservers(a: Observer[], b: Observer[]): Observer[] {
   return out;
 }
 
-function planCruise(stored: Cruise | null, incoming: Cruise): MergePlan['cruise'] {
+/** The cruise's decision (a reader in pieces knows the cruise before the rest). */
+export function planCruise(stored: Cruise | null, incoming: Cruise): MergePlan['cruise'] {
   if (!stored) return { action: 'create', value: incoming };
   if (stored.id !== incoming.id) throw new MergeRefused(`the file is of cruise "${incoming.name}" (${incoming.id}), not of "${stored.name}" (${stored.id})`);
   // The settings saved last win; observers are never dropped.
@@ -120,13 +121,13 @@ export function emptyPlan(cruise: MergePlan['cruise']): MergePlan {
     addTrack: [],
     addPhotos: [],
     items: [],
-    counts: { new: 0, identical: 0, newer: 0, older: 0, conflict: 0, versionsWritten: 0, trackNew: 0, trackDuplicate: 0, photosNew: 0, photosDuplicate: 0 },
+    counts: emptyCounts(),
   };
 }
 
-/** The cruise's decision alone (a reader in pieces knows the cruise before the rest). */
-export function planCruiseOf(target: MergeTarget, incoming: Cruise): MergePlan['cruise'] {
-  return planCruise(target.cruise, incoming);
+/** Counts of a plan with nothing in it. */
+export function emptyCounts(): MergeCounts {
+  return { new: 0, identical: 0, newer: 0, older: 0, conflict: 0, versionsWritten: 0, trackNew: 0, trackDuplicate: 0, photosNew: 0, photosDuplicate: 0 };
 }
 
 /**
@@ -241,8 +242,9 @@ export function planMerge(target: MergeTarget, incoming: LogBundle): MergePlan {
 }
 
 /** True when applying the plan would change nothing. */
-export function planIsEmpty(plan: MergePlan): boolean {
-  return plan.cruise.action === 'unchanged' && plan.counts.versionsWritten === 0 && plan.addTrack.length === 0 && plan.addPhotos.length === 0;
+/** True when applying the plan would change nothing (also of an import's summary, which has the same counts). */
+export function planIsEmpty(plan: Pick<MergePlan, 'cruise' | 'counts'>): boolean {
+  return plan.cruise.action === 'unchanged' && plan.counts.versionsWritten === 0 && plan.counts.trackNew === 0 && plan.counts.photosNew === 0;
 }
 
 /** A merge target over a bundle held in memory (the command line's merge, tests). */

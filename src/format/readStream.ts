@@ -22,6 +22,7 @@ import type { Problem, ProblemReport } from './problems';
 import { photoWarnings, readLogText, ruleFindings, type ReadOptions, type ReadResult, type ReadWarning, type RuleCheck } from './read';
 import { nextListRun } from './listRuns';
 import { JsonScanner } from './scan';
+import { decodeLogText } from './text';
 import { CURRENT_VERSION, FORMAT_NAME, TRACK_COLUMNS, type FileObservation, type LogBundle, type LogFileV2, type PhotoMeta, type TrackRow } from './types';
 
 /** What a reader hands on, in file order; every piece is provisional until the verdict is ok. */
@@ -421,6 +422,34 @@ export interface LogSource {
   pieces: () => TextSource;
   /** The whole text, as the whole-file reader takes it (with the file's size in bytes). */
   whole: () => { text: string; byteLength: number } | { problem: Problem };
+}
+
+/** Bytes of a file read per piece. */
+export const PIECE_BYTES = 4 << 20;
+
+/**
+ * A log file read through `range` (its bytes from `at`, `n` of them or fewer at the end): in
+ * pieces of PIECE_BYTES for the reader in pieces, whole for the whole-file reader. The app's
+ * import worker reads with FileReaderSync, the command line with readSync. `onPiece` gets the
+ * fraction of the file read.
+ */
+export function byteRangeSource(size: number, range: (at: number, n: number) => Uint8Array, onPiece?: (fraction: number) => void): LogSource {
+  return {
+    pieces: () => {
+      let at = 0;
+      return utf8Source(() => {
+        if (at >= size) return null;
+        const bytes = range(at, PIECE_BYTES);
+        at += PIECE_BYTES;
+        onPiece?.(Math.min(1, at / size));
+        return bytes;
+      });
+    },
+    whole: () => {
+      const decoded = decodeLogText(range(0, size));
+      return decoded.ok ? { text: decoded.text, byteLength: size } : { problem: decoded.problem };
+    },
+  };
 }
 
 /**

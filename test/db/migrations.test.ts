@@ -19,6 +19,7 @@ import {
 } from '../../src/db';
 import { liftDraftData, liftStoredObservation } from '../../src/db/upgradeIceTypes';
 import { cruiseObservations } from '../../src/db/cruiseObservations';
+import { compareObservations } from '../../src/domain/stats/review';
 import { expectLiftedWithoutLoss, MARKER } from '../format/liftCheck';
 import { comparable, fixtureFiles, loadFixture, readFixture } from './fixtures/load';
 import { freshDatabasePerTest } from './helpers';
@@ -230,24 +231,28 @@ describe('version 3: deformation and snow in groups of their own', () => {
   });
 });
 
+/** Loads the fixture of schema `version`, opens it with the current code, and gives its observations. */
+async function openedFromFixture(version: number) {
+  const file = fixtureFiles().find((f) => f.version === version);
+  if (!file) throw new Error(`no version-${version} fixture`);
+  await loadFixture(db.name(), readFixture(file.file));
+  selectDatabase(db.name());
+  await openFloeDb();
+  const d = getDb();
+  return { d, all: await d.observations.toArray() };
+}
+
 describe('version 7: no index on cruiseId alone for observations', () => {
   it('drops the index over the version-6 fixture and still finds every observation of each cruise, in time order', async () => {
-    const v6File = fixtureFiles().find((f) => f.version === 6);
-    if (!v6File) throw new Error('no version-6 fixture');
-    const fx = readFixture(v6File.file);
-    await loadFixture(db.name(), fx);
-    selectDatabase(db.name());
-    await openFloeDb();
-    const d = getDb();
+    const { d, all } = await openedFromFixture(6);
     const indexes = d.observations.schema.indexes.map((i) => i.name);
     expect(indexes).toContain('[cruiseId+time]');
     expect(indexes).not.toContain('cruiseId');
-    const all = await d.observations.toArray();
     const cruiseIds = [...new Set(all.map((o) => o.cruiseId))];
     expect(cruiseIds.length).toBeGreaterThan(0);
     for (const id of cruiseIds) {
       const byIndex = await cruiseObservations(d, id).toArray();
-      const byScan = all.filter((o) => o.cruiseId === id).sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : a.id < b.id ? -1 : 1));
+      const byScan = all.filter((o) => o.cruiseId === id).sort(compareObservations);
       expect(byIndex.map((o) => o.id)).toEqual(byScan.map((o) => o.id));
     }
   });
@@ -255,21 +260,14 @@ describe('version 7: no index on cruiseId alone for observations', () => {
 
 describe('version 8: no index on observerId for observations', () => {
   it('drops the index over the version-7 fixture and an observer is still found per cruise, in time order', async () => {
-    const v7File = fixtureFiles().find((f) => f.version === 7);
-    if (!v7File) throw new Error('no version-7 fixture');
-    const fx = readFixture(v7File.file);
-    await loadFixture(db.name(), fx);
-    selectDatabase(db.name());
-    await openFloeDb();
-    const d = getDb();
+    const { d, all } = await openedFromFixture(7);
     expect(d.observations.schema.indexes.map((i) => i.name)).toEqual(['[cruiseId+time]']);
-    const all = await d.observations.toArray();
     const pairs = [...new Set(all.filter((o) => !o.deleted).map((o) => `${o.cruiseId} ${o.observerId}`))];
     expect(pairs.length).toBeGreaterThan(1);
     for (const pair of pairs) {
       const [cruiseId, observerId] = pair.split(' ') as [string, string];
       const listed = await listObservations(cruiseId, { observerId });
-      const byScan = all.filter((o) => o.cruiseId === cruiseId && o.observerId === observerId && !o.deleted).sort((a, b) => (a.time < b.time ? -1 : a.time > b.time ? 1 : a.id < b.id ? -1 : 1));
+      const byScan = all.filter((o) => o.cruiseId === cruiseId && o.observerId === observerId && !o.deleted).sort(compareObservations);
       expect(listed.map((o) => o.id)).toEqual(byScan.map((o) => o.id));
     }
   });

@@ -5,7 +5,8 @@ import { getSetting, ImportFileChangedError, setActiveCruise, StaleImportError, 
 import { formatProblem } from '../../format/problems';
 import { ImportFailed, startImport, type ImportClient } from './importClient';
 import type { PreviewOutcome } from './progress';
-import { ImportPreview, summaryIsEmpty } from './ImportPreview';
+import { planIsEmpty } from '../../format/merge';
+import { ImportPreview } from './ImportPreview';
 
 type Previewed = PreviewOutcome & { ok: true };
 
@@ -160,7 +161,7 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
         <div className="import-preview">
           <h4>Preview of {phase.parsed.fileName}</h4>
           <ImportPreview summary={phase.parsed.summary} />
-          {summaryIsEmpty(phase.parsed.summary) ? (
+          {planIsEmpty(phase.parsed.summary) ? (
             <p role="status" data-testid="import-nothing">Everything in this file is already stored: there is nothing to import.</p>
           ) : null}
           {phase.kind === 'applying' && (
@@ -170,7 +171,7 @@ export function ImportPanel({ onImported }: { onImported: (cruiseId: string) => 
             </label>
           )}
           <div className="button-row">
-            <button type="button" className="button primary" disabled={phase.kind === 'applying' || summaryIsEmpty(phase.parsed.summary)} onClick={() => void apply(phase.parsed)}>
+            <button type="button" className="button primary" disabled={phase.kind === 'applying' || planIsEmpty(phase.parsed.summary)} onClick={() => void apply(phase.parsed)}>
               {phase.kind === 'applying' ? 'Importing...' : 'Apply import'}
             </button>
             <button type="button" className="button" disabled={phase.kind === 'applying'} onClick={cancel}>

@@ -12,11 +12,6 @@ const ROWS: { key: keyof ImportSummary['counts']; label: string; note: string }[
   { key: 'photosNew', label: 'New photos', note: 'added' },
 ];
 
-/** True when applying the import would change nothing. */
-export function summaryIsEmpty(s: ImportSummary): boolean {
-  return s.cruise.action === 'unchanged' && s.counts.versionsWritten === 0 && s.counts.trackNew === 0 && s.counts.photosNew === 0;
-}
-
 export function ImportPreview({ summary }: { summary: ImportSummary }) {
   const { cruise, counts, warnings, fromVersion, photosWithoutBytes } = summary;
   return (

@@ -7,13 +7,9 @@ import { applyImport, KEEP_PIECES_MAX_BYTES, previewImport, type ApplyResult, ty
 import { looksLikeZip } from '../../format/archive';
 import { readArchive } from '../../format/archiveRead';
 import { LIMITS } from '../../format/limits';
-import { bundlePieces, openLog, utf8Source, type LogSource } from '../../format/readStream';
-import { decodeLogText } from '../../format/text';
+import { bundlePieces, byteRangeSource, openLog } from '../../format/readStream';
 import type { PhotoBytes } from '../../format/types';
 import type { ParseStage, PreviewOutcome } from './progress';
-
-/** Bytes read from the file per piece. */
-const PIECE_BYTES = 4 << 20;
 
 type SyncReader = { readAsArrayBuffer: (b: Blob) => ArrayBuffer };
 
@@ -60,23 +56,7 @@ export class ImportSession {
       this.photos = r.photos;
       this.open = () => bundlePieces(r);
     } else {
-      const size = file.size;
-      const src: LogSource = {
-        pieces: () => {
-          let at = 0;
-          return utf8Source(() => {
-            if (at >= size) return null;
-            const bytes = range(at, PIECE_BYTES);
-            at += PIECE_BYTES;
-            this.readProgress(Math.min(1, at / size));
-            return bytes;
-          });
-        },
-        whole: () => {
-          const decoded = decodeLogText(range(0, size));
-          return decoded.ok ? { text: decoded.text, byteLength: size } : { problem: decoded.problem };
-        },
-      };
+      const src = byteRangeSource(file.size, range, (f) => this.readProgress(f));
       this.open = (route, checkedHash) => openLog(src, checkedHash === undefined ? { route } : { route, checkedHash });
     }
     // A file up to the size whose pieces fit in memory is read once (src/db/importStream.ts).

@@ -120,10 +120,7 @@ export class MapController {
     this.map.addControl(new ScaleControl({ unit: 'metric', maxWidth: 140 }), 'bottom-left');
     opts.onState?.('loading');
     this.map.on('styleimagemissing', (e: { id: string }) => this.drawMissingImage(e.id));
-    this.map.on('load', () => {
-      if (this.workerPatch !== 'pending') this.onLoad();
-      else void this.workerPatchDone.then(() => this.onLoad());
-    });
+    this.map.on('load', () => void this.workerPatchDone.then(() => this.onLoad()));
     this.map.on('idle', () => {
       for (const r of this.releaseWhenIdle.splice(0)) r();
       opts.onState?.('idle');
